@@ -1,0 +1,30 @@
+// @ts-check
+/**
+ * `npm run bench`: run every bench/*.bench.ts (plain scripts that print their own figures) one
+ * after another through tsx, so timings do not compete for the two cores. Speed targets live
+ * here, never in timed tests. `npm run bench -- thermal` runs only the matching files.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { ensureNodeModules } from './lib/deps.js';
+import { ROOT } from './lib/config.js';
+import { run } from './lib/proc.js';
+
+await ensureNodeModules();
+const filter = process.argv[2];
+const files = fs
+	.readdirSync(path.join(ROOT, 'bench'))
+	.filter((f) => f.endsWith('.bench.ts') && (!filter || f.includes(filter)))
+	.sort();
+let failed = 0;
+for (const file of files) {
+	console.log(`\n=== ${file} ===`);
+	const code = await run(
+		process.execPath,
+		[path.join(ROOT, 'node_modules/tsx/dist/cli.mjs'), path.join(ROOT, 'bench', file)],
+		{ cwd: ROOT }
+	);
+	if (code !== 0) failed += 1;
+}
+console.log(`\n${files.length - failed} benchmark files ran, ${failed} failed`);
+process.exit(failed ? 1 : 0);

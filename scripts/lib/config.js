@@ -1,0 +1,109 @@
+// @ts-check
+/**
+ * Which services to run and with what settings, for the `dev`, `start` and `test` profiles.
+ * A variable already set in the environment wins; when it points at an external service
+ * (DATABASE_URL, S3_ENDPOINT, SMTP_URL/SMTP_HOST), the embedded one is not started.
+ */
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+
+/** Ports per profile: one block for development, another for tests, so both can run at once. */
+const PORTS = {
+	app: { dev: 5173, start: 3000, test: 3311 },
+	postgres: { dev: 54330, start: 54330, test: 54340 },
+	s3: { dev: 54331, start: 54331, test: 54341 },
+	smtp: { dev: 54332, start: 54332, test: 54342 },
+	mailWeb: { dev: 54333, start: 54333, test: 54343 }
+};
+
+/** @typedef {'dev' | 'start' | 'test'} Profile */
+
+/**
+ * @param {Profile} profile
+ * @param {NodeJS.ProcessEnv} [env]
+ */
+export function resolveConfig(profile, env = process.env) {
+	const storageDir = path.join(ROOT, 'storage', profile === 'test' ? 'test' : 'local');
+	const host = '127.0.0.1';
+	/** @param {keyof typeof PORTS} name */
+	const port = (name) => PORTS[name][profile];
+
+	const appPort = Number(env.PORT ?? port('app'));
+	const embedded = {
+		postgres: !env.DATABASE_URL,
+		s3: !env.S3_ENDPOINT,
+		mail: !env.SMTP_URL && !env.SMTP_HOST
+	};
+	const database = profile === 'test' ? 'thermalith_test' : 'thermalith';
+
+	/** @type {Record<string, string>} */
+	const appEnv = {
+		NODE_ENV: profile === 'dev' ? 'development' : profile === 'test' ? 'test' : 'production',
+		THERMALITH_PROFILE: profile,
+		HOST: env.HOST ?? host,
+		PORT: String(appPort),
+		ORIGIN: env.ORIGIN ?? `http://${host}:${appPort}`,
+		DATABASE_URL: env.DATABASE_URL ?? `postgres://postgres@${host}:${port('postgres')}/${database}`,
+		S3_ENDPOINT: env.S3_ENDPOINT ?? `http://${host}:${port('s3')}`,
+		S3_BUCKET: env.S3_BUCKET ?? 'thermalith',
+		S3_REGION: env.S3_REGION ?? 'us-east-1',
+		// s3rver accepts any signature made with its well-known key pair.
+		S3_ACCESS_KEY_ID: env.S3_ACCESS_KEY_ID ?? 'S3RVER',
+		S3_SECRET_ACCESS_KEY: env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
+		S3_FORCE_PATH_STYLE: env.S3_FORCE_PATH_STYLE ?? 'true',
+		MAIL_FROM: env.MAIL_FROM ?? 'Thermalith <no-reply@thermalith.local>',
+		BETTER_AUTH_SECRET: env.BETTER_AUTH_SECRET ?? localSecret(storageDir),
+		BODY_SIZE_LIMIT: env.BODY_SIZE_LIMIT ?? '60M'
+	};
+	if (embedded.mail) {
+		appEnv.SMTP_URL = `smtp://${host}:${port('smtp')}`;
+		appEnv.MAIL_VIEWER_URL = `http://${host}:${port('mailWeb')}`;
+	}
+	for (const name of [
+		'SMTP_URL',
+		'SMTP_HOST',
+		'SMTP_PORT',
+		'SMTP_USER',
+		'SMTP_PASSWORD',
+		'SMTP_SECURE',
+		'PUBLIC_TILE_URL',
+		'PUBLIC_TILE_ATTRIBUTION',
+		'MAIL_VIEWER_URL'
+	]) {
+		if (env[name] !== undefined) appEnv[name] = /** @type {string} */ (env[name]);
+	}
+
+	return {
+		profile,
+		host,
+		storageDir,
+		embedded,
+		database,
+		ports: {
+			app: appPort,
+			postgres: port('postgres'),
+			s3: port('s3'),
+			smtp: port('smtp'),
+			mailWeb: port('mailWeb')
+		},
+		appEnv
+	};
+}
+
+/**
+ * A per-checkout auth secret for local use, kept under storage/ so sessions survive restarts.
+ * Production sets BETTER_AUTH_SECRET itself; the app refuses to start there without it.
+ * @param {string} storageDir
+ */
+function localSecret(storageDir) {
+	const file = path.join(storageDir, 'auth-secret');
+	if (fs.existsSync(file)) return fs.readFileSync(file, 'utf8').trim();
+	fs.mkdirSync(storageDir, { recursive: true });
+	const secret = crypto.randomBytes(32).toString('base64url');
+	fs.writeFileSync(file, secret + '\n', { mode: 0o600 });
+	return secret;
+}

@@ -1,0 +1,27 @@
+// @ts-check
+/** Small, dependency-free console helpers for the orchestration scripts (they run before `npm ci`). */
+
+const useColour = process.stdout.isTTY && !process.env.NO_COLOR;
+/** @param {string} code @param {string} text */
+const paint = (code, text) => (useColour ? `\x1b[${code}m${text}\x1b[0m` : text);
+
+/** @param {string} message */
+export function step(message) {
+	console.log(`${paint('33', '▸')} ${message}`);
+}
+
+/** @param {string} message */
+export function ok(message) {
+	console.log(`${paint('32', '✓')} ${message}`);
+}
+
+/** @param {string} message */
+export function warn(message) {
+	console.warn(`${paint('33', '!')} ${message}`);
+}
+
+/** Print a message and stop with a non-zero exit code. @param {string} message @returns {never} */
+export function fatal(message) {
+	console.error(`${paint('31', '✗')} ${message}`);
+	process.exit(1);
+}

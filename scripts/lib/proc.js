@@ -1,0 +1,128 @@
+// @ts-check
+/** Child-process helpers: run a command to completion, or keep a service running and stop it later. */
+import { spawn, spawnSync } from 'node:child_process';
+import net from 'node:net';
+
+/**
+ * Run a command, inheriting stdio, and resolve with its exit code.
+ * @param {string} cmd @param {string[]} args @param {import('node:child_process').SpawnOptions} [options]
+ * @returns {Promise<number>}
+ */
+export function run(cmd, args, options = {}) {
+	return new Promise((resolve, reject) => {
+		const child = spawn(cmd, args, { stdio: 'inherit', ...options });
+		child.on('error', reject);
+		child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+	});
+}
+
+/**
+ * Run a command synchronously and capture its output.
+ * @param {string} cmd @param {string[]} args @param {import('node:child_process').SpawnSyncOptions} [options]
+ */
+export function capture(cmd, args, options = {}) {
+	const result = spawnSync(cmd, args, { encoding: 'utf8', ...options });
+	return {
+		code: result.status ?? 1,
+		stdout: String(result.stdout ?? ''),
+		stderr: String(result.stderr ?? ''),
+		error: result.error
+	};
+}
+
+/** Resolve once something accepts TCP connections on host:port, or reject after timeoutMs. */
+export async function waitForPort(
+	/** @type {string} */ host,
+	/** @type {number} */ port,
+	timeoutMs = 20_000
+) {
+	const deadline = Date.now() + timeoutMs;
+	while (Date.now() < deadline) {
+		if (await canConnect(host, port)) return;
+		await new Promise((r) => setTimeout(r, 100));
+	}
+	throw new Error(`nothing answered on ${host}:${port} within ${timeoutMs} ms`);
+}
+
+/** @param {string} host @param {number} port @returns {Promise<boolean>} */
+export function canConnect(host, port) {
+	return new Promise((resolve) => {
+		const socket = net.connect({ host, port });
+		socket.once('connect', () => {
+			socket.destroy();
+			resolve(true);
+		});
+		socket.once('error', () => resolve(false));
+	});
+}
+
+/** @typedef {{ name: string, child: import('node:child_process').ChildProcess }} Service */
+
+/** Services started by this process, stopped in reverse order by stopAll(). @type {Service[]} */
+const services = [];
+
+/**
+ * Start a long-running node program as a service with a prefixed log.
+ * Started as `node <file>` (not through npx) so the pid we keep is the server's own.
+ * @param {string} name @param {string[]} args @param {NodeJS.ProcessEnv} env
+ */
+export function startService(name, args, env) {
+	const child = spawn(process.execPath, args, { env, stdio: ['ignore', 'pipe', 'pipe'] });
+	const prefix = `[${name}] `;
+	child.stdout?.on('data', (d) => process.stdout.write(prefixLines(prefix, d)));
+	child.stderr?.on('data', (d) => process.stderr.write(prefixLines(prefix, d)));
+	services.push({ name, child });
+	return child;
+}
+
+/** Register a stop function (e.g. for PostgreSQL, which is not our child). @type {(() => Promise<void>)[]} */
+const stoppers = [];
+/** @param {() => Promise<void>} fn */
+export function onStop(fn) {
+	stoppers.push(fn);
+}
+
+/** @param {string} prefix @param {Buffer} data */
+function prefixLines(prefix, data) {
+	return data
+		.toString()
+		.split(/\n(?=.)/)
+		.map((l) => prefix + l)
+		.join('\n');
+}
+
+let stopping = false;
+/** Stop every service started here (SIGTERM, then SIGKILL after a grace period) and run stoppers. */
+export async function stopAll() {
+	if (stopping) return;
+	stopping = true;
+	for (const { child } of [...services].reverse()) {
+		if (child.exitCode !== null || child.signalCode !== null) continue;
+		await new Promise((resolve) => {
+			const timer = setTimeout(() => child.kill('SIGKILL'), 5000);
+			child.once('exit', () => {
+				clearTimeout(timer);
+				resolve(undefined);
+			});
+			child.kill('SIGTERM');
+		});
+	}
+	for (const stop of [...stoppers].reverse()) {
+		try {
+			await stop();
+		} catch (err) {
+			console.error(err);
+		}
+	}
+}
+
+/** Stop everything on Ctrl-C / SIGTERM, then exit. */
+export function stopOnSignals() {
+	for (const signal of /** @type {const} */ (['SIGINT', 'SIGTERM'])) {
+		process.on(signal, async () => {
+			console.log(`\nreceived ${signal}, stopping services…`);
+			await stopAll();
+			process.exit(0);
+		});
+	}
+}

@@ -1,0 +1,94 @@
+// @ts-check
+/** Bring up the embedded services a profile needs: PostgreSQL + PostGIS, the S3 fake, the mail catcher. */
+import fs from 'node:fs';
+import path from 'node:path';
+import { ROOT } from './config.js';
+import { fatal, ok, step } from './log.js';
+import { ensureDatabase, ensurePostgresInstalled, startCluster } from './postgres.js';
+import { canConnect, onStop, startService, waitForPort } from './proc.js';
+
+/**
+ * @param {ReturnType<typeof import('./config.js').resolveConfig>} config
+ * @param {{ freshDatabase?: boolean, freshObjects?: boolean }} [options]
+ */
+export async function startEmbeddedServices(config, options = {}) {
+	const { host, ports, storageDir, embedded } = config;
+	fs.mkdirSync(storageDir, { recursive: true });
+
+	if (embedded.postgres) {
+		await ensurePostgresInstalled();
+		const stop = await startCluster({
+			dataDir: path.join(storageDir, 'postgres'),
+			host,
+			port: ports.postgres,
+			fast: config.profile === 'test'
+		});
+		onStop(stop);
+		ensureDatabase({
+			host,
+			port: ports.postgres,
+			database: config.database,
+			recreate: options.freshDatabase
+		});
+	} else {
+		ok('using the PostgreSQL at DATABASE_URL (embedded cluster not started)');
+	}
+
+	if (embedded.s3) {
+		const dir = path.join(storageDir, 's3');
+		if (options.freshObjects) fs.rmSync(dir, { recursive: true, force: true });
+		await startNodeService('s3', ports.s3, host, [
+			path.join(ROOT, 'scripts/services/s3-fake.js'),
+			'--port',
+			String(ports.s3),
+			'--address',
+			host,
+			'--directory',
+			dir,
+			'--bucket',
+			config.appEnv.S3_BUCKET
+		]);
+	} else {
+		ok(`using the object store at S3_ENDPOINT (embedded S3 fake not started)`);
+	}
+
+	if (embedded.mail) {
+		const dir = path.join(storageDir, 'mail');
+		if (options.freshObjects) fs.rmSync(dir, { recursive: true, force: true });
+		await startNodeService('mail', ports.smtp, host, [
+			path.join(ROOT, 'scripts/services/mail-catcher.js'),
+			'--smtp-port',
+			String(ports.smtp),
+			'--web-port',
+			String(ports.mailWeb),
+			'--address',
+			host,
+			'--directory',
+			dir
+		]);
+		await waitForPort(host, ports.mailWeb);
+	} else {
+		ok('using the SMTP server from SMTP_URL / SMTP_HOST (embedded mail catcher not started)');
+	}
+}
+
+/**
+ * @param {string} name @param {number} port @param {string} host @param {string[]} args
+ */
+async function startNodeService(name, port, host, args) {
+	if (await canConnect(host, port)) {
+		fatal(
+			`port ${host}:${port} for the ${name} service is already in use (another Thermalith running?). Stop it first.`
+		);
+	}
+	step(`starting ${name} service on ${host}:${port}`);
+	const child = startService(name, args, { ...process.env });
+	const exited = new Promise((_, reject) =>
+		child.once('exit', (code) => reject(new Error(`${name} service exited with code ${code}`)))
+	);
+	try {
+		await Promise.race([waitForPort(host, port), exited]);
+	} catch (err) {
+		fatal(String(/** @type {Error} */ (err).message));
+	}
+}

@@ -1,0 +1,3 @@
+export * from './organisations';
+export * from './datasets';
+export * from './sites';

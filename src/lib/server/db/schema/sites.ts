@@ -1,0 +1,77 @@
+import { sql } from 'drizzle-orm';
+import {
+	doublePrecision,
+	index,
+	integer,
+	pgEnum,
+	pgTable,
+	smallint,
+	text,
+	timestamp,
+	uniqueIndex,
+	uuid
+} from 'drizzle-orm/pg-core';
+import { pointWgs84 } from '../point';
+import { dataset } from './datasets';
+
+/** How the heat flow was determined (the trade's own categories). */
+export const heatFlowMethod = pgEnum('heat_flow_method', [
+	'borehole_interval',
+	'bullard',
+	'bottom_hole_temperature',
+	'marine_probe',
+	'other'
+]);
+
+/**
+ * One heat-flow determination at a place. Values are stored in SI-derived display units named in
+ * each column (mW/m², K/km, W/m/K, µW/m³, °C, m); uncertainties are one standard deviation.
+ */
+export const site = pgTable(
+	'site',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		datasetId: uuid()
+			.notNull()
+			.references(() => dataset.id, { onDelete: 'cascade' }),
+		code: text().notNull(),
+		name: text(),
+		location: pointWgs84().notNull(),
+		/** Coordinates exactly as entered, in the CRS given by originalEpsg. */
+		originalX: doublePrecision(),
+		originalY: doublePrecision(),
+		originalEpsg: integer(),
+		elevationM: doublePrecision(),
+		waterDepthM: doublePrecision(),
+		topDepthM: doublePrecision(),
+		bottomDepthM: doublePrecision(),
+		heatFlowMWm2: doublePrecision('heat_flow_mw_m2'),
+		heatFlowSigmaMWm2: doublePrecision('heat_flow_sigma_mw_m2'),
+		gradientKPerKm: doublePrecision(),
+		gradientSigmaKPerKm: doublePrecision(),
+		conductivityWmK: doublePrecision('conductivity_w_mk'),
+		conductivitySigmaWmK: doublePrecision('conductivity_sigma_w_mk'),
+		conductivitySamples: integer(),
+		conductivityMethod: text(),
+		heatProductionUWm3: doublePrecision('heat_production_uw_m3'),
+		heatProductionSigmaUWm3: doublePrecision('heat_production_sigma_uw_m3'),
+		surfaceTemperatureC: doublePrecision(),
+		method: heatFlowMethod().notNull().default('other'),
+		corrections: text().array().notNull().default([]),
+		yearMeasured: smallint(),
+		remarks: text(),
+		/** The product's own quality class, computed from uncertainty, method and sample count. */
+		qualityClass: text(),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [
+		uniqueIndex('site_dataset_code_idx').on(t.datasetId, t.code),
+		index('site_location_gist').using('gist', t.location),
+		// Distance searches in metres cast to geography; a plain geometry index is not used for them.
+		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`)
+	]
+);
+
+export type Site = typeof site.$inferSelect;
+export type NewSite = typeof site.$inferInsert;

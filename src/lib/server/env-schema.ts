@@ -1,0 +1,52 @@
+import { z } from 'zod';
+
+/**
+ * The app's environment, validated once at boot. Kept free of SvelteKit imports so scripts and
+ * tests can validate a plain object with the same rules.
+ */
+const url = (protocols: string[]) =>
+	z
+		.string()
+		.url({ message: 'must be a URL' })
+		.refine((v) => protocols.includes(new URL(v).protocol), {
+			message: `must start with ${protocols.join(' or ')}//`
+		});
+
+export const envSchema = z
+	.object({
+		DATABASE_URL: url(['postgres:', 'postgresql:']),
+		S3_ENDPOINT: url(['http:', 'https:']),
+		S3_BUCKET: z.string().min(3),
+		S3_REGION: z.string().min(1).default('us-east-1'),
+		S3_ACCESS_KEY_ID: z.string().min(1),
+		S3_SECRET_ACCESS_KEY: z.string().min(1),
+		S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true'),
+		SMTP_URL: url(['smtp:', 'smtps:']).optional(),
+		SMTP_HOST: z.string().min(1).optional(),
+		SMTP_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+		SMTP_USER: z.string().optional(),
+		SMTP_PASSWORD: z.string().optional(),
+		SMTP_SECURE: z.enum(['true', 'false']).optional(),
+		MAIL_FROM: z.string().min(3).default('Thermalith <no-reply@thermalith.local>'),
+		MAIL_VIEWER_URL: url(['http:', 'https:']).optional(),
+		ORIGIN: url(['http:', 'https:']).optional(),
+		BETTER_AUTH_SECRET: z.string().min(32, { message: 'must be at least 32 characters' }),
+		THERMALITH_PROFILE: z.enum(['dev', 'start', 'test', 'production']).default('production')
+	})
+	.refine((e) => e.SMTP_URL || e.SMTP_HOST, {
+		message: 'set SMTP_URL (smtp://host:port) or SMTP_HOST and SMTP_PORT',
+		path: ['SMTP_URL']
+	});
+
+export type AppEnv = z.infer<typeof envSchema>;
+
+/** Parse the environment or throw one error that lists every bad variable by name. */
+export function parseEnv(source: Record<string, string | undefined>): AppEnv {
+	const result = envSchema.safeParse(source);
+	if (result.success) return result.data;
+	const lines = result.error.issues.map((issue) => {
+		const name = issue.path.join('.') || 'environment';
+		return `  - ${name}: ${issue.code === 'invalid_type' ? 'is not set' : issue.message}`;
+	});
+	throw new Error(`Thermalith cannot start; fix these environment variables:\n${lines.join('\n')}`);
+}

@@ -1,0 +1,7 @@
+import { getDb } from '$lib/server/db';
+import { listOrganisations } from '$lib/server/repositories/organisations';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async () => ({
+	organisations: await listOrganisations(getDb())
+});

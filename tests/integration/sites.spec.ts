@@ -1,0 +1,114 @@
+import { eq, sql } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ANONYMOUS, type Viewer } from '../../src/lib/server/access';
+import { createDb } from '../../src/lib/server/db/client';
+import { dataset, organisation, site } from '../../src/lib/server/db/schema';
+import { visibleSitesInBox } from '../../src/lib/server/repositories/sites';
+import { testEnv } from './env';
+
+const { db, client } = createDb(testEnv.databaseUrl(), { max: 2 });
+const orgId = `org-it-sites-${Date.now()}`;
+const datasetIds: Record<string, string> = {};
+
+beforeAll(async () => {
+	await db.insert(organisation).values({ id: orgId, name: 'Integration Test Org', slug: orgId });
+	const rows = await db
+		.insert(dataset)
+		.values([
+			{
+				organisationId: orgId,
+				title: 'public',
+				licence: 'CC0-1.0',
+				status: 'published',
+				visibility: 'public'
+			},
+			{
+				organisationId: orgId,
+				title: 'embargoed',
+				licence: 'CC0-1.0',
+				status: 'published',
+				visibility: 'embargoed',
+				embargoUntil: '2999-01-01'
+			},
+			{
+				organisationId: orgId,
+				title: 'released',
+				licence: 'CC0-1.0',
+				status: 'published',
+				visibility: 'embargoed',
+				embargoUntil: '2001-01-01'
+			},
+			{
+				organisationId: orgId,
+				title: 'private',
+				licence: 'CC0-1.0',
+				status: 'published',
+				visibility: 'private'
+			},
+			{
+				organisationId: orgId,
+				title: 'draft',
+				licence: 'CC0-1.0',
+				status: 'draft',
+				visibility: 'public'
+			}
+		])
+		.returning({ id: dataset.id, title: dataset.title });
+	for (const r of rows) datasetIds[r.title] = r.id;
+	// All in a small box in the South Atlantic, far from the demo scenario.
+	await db.insert(site).values(
+		Object.entries(datasetIds).map(([title, id], i) => ({
+			datasetId: id,
+			code: `IT-${title}`,
+			location: { lon: -20.5 + i * 0.01, lat: -40.25 },
+			heatFlowMWm2: 60 + i
+		}))
+	);
+});
+
+afterAll(async () => {
+	await db.delete(organisation).where(eq(organisation.id, orgId));
+	await client.end();
+});
+
+const box = { west: -21, south: -41, east: -20, north: -40 };
+const codes = async (viewer: Viewer) =>
+	(await visibleSitesInBox(db, viewer, box)).map((s) => s.code).sort();
+
+describe('site locations in PostGIS', () => {
+	it('store SRID 4326 and read back the same longitude and latitude', async () => {
+		const [row] = await db
+			.select({ srid: sql<number>`ST_SRID(${site.location})`, location: site.location })
+			.from(site)
+			.where(eq(site.code, 'IT-public'));
+		expect(row.srid).toBe(4326);
+		expect(row.location).toEqual({ lon: -20.5, lat: -40.25 });
+	});
+
+	it('are found by a bounding-box query that can use the GiST index', async () => {
+		expect(await codes({ ...ANONYMOUS, isPlatformAdmin: true })).toHaveLength(5);
+		// The table is tiny, so the planner would rightly choose a scan; forbid that to prove the
+		// index answers the envelope query.
+		const plan = await client.begin(async (tx) => {
+			await tx`SET LOCAL enable_seqscan = off`;
+			return tx`EXPLAIN SELECT id FROM site WHERE location && ST_MakeEnvelope(-21, -41, -20, -40, 4326)`;
+		});
+		expect(plan.map((r) => r['QUERY PLAN']).join('\n')).toContain('site_location_gist');
+	});
+});
+
+describe('which sites a viewer may see', () => {
+	it('shows anonymous visitors only published public or released-embargo datasets', async () => {
+		expect(await codes(ANONYMOUS)).toEqual(['IT-public', 'IT-released']);
+	});
+	it('shows members everything of their own organisation', async () => {
+		expect(await codes({ userId: 'u1', organisationIds: [orgId], isPlatformAdmin: false })).toEqual(
+			['IT-draft', 'IT-embargoed', 'IT-private', 'IT-public', 'IT-released']
+		);
+	});
+	it('does not let a member of another organisation see private or embargoed data', async () => {
+		expect(
+			await codes({ userId: 'u2', organisationIds: ['someone-else'], isPlatformAdmin: false })
+		).toEqual(['IT-public', 'IT-released']);
+	});
+});

@@ -1,0 +1,55 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { svelteTesting } from '@testing-library/svelte/vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	server: { host: '127.0.0.1' },
+	test: {
+		expect: { requireAssertions: true },
+		projects: [
+			{
+				extends: './vite.config.ts',
+				test: {
+					name: 'server',
+					environment: 'node',
+					include: ['src/**/*.spec.ts'],
+					exclude: ['src/**/*.svelte.spec.ts']
+				}
+			},
+			{
+				extends: './vite.config.ts',
+				plugins: [svelteTesting()],
+				test: {
+					name: 'client',
+					environment: 'jsdom',
+					include: ['src/**/*.svelte.spec.ts']
+				}
+			},
+			{
+				extends: './vite.config.ts',
+				test: {
+					name: 'integration',
+					environment: 'node',
+					include: ['tests/integration/**/*.spec.ts'],
+					// One shared database: files run one after another so fixtures never race.
+					fileParallelism: false,
+					testTimeout: 30_000,
+					hookTimeout: 60_000
+				}
+			},
+			{
+				extends: './vite.config.ts',
+				test: {
+					name: 'e2e',
+					environment: 'node',
+					include: ['tests/e2e/**/*.e2e.ts'],
+					fileParallelism: false,
+					testTimeout: 60_000,
+					hookTimeout: 60_000
+				}
+			}
+		]
+	}
+});
