@@ -1,0 +1,30 @@
+/*
+ * Thermalith geostatistics core: pure TypeScript (no DOM, Node, SvelteKit or database
+ * imports), so it runs in a worker on the server or in the browser. Coordinates are
+ * projected metres; see docs/geostats.md for the grid and variogram conventions.
+ */
+export type { Sample, GridSpec, VariogramModel, Variogram, VariogramPoint } from './types';
+export { GeostatsInputError, SingularSystemError } from './errors';
+export { MAX_GRID_CELLS, cellCentreX, cellCentreY, cellIndex, gridFromExtent } from './grid';
+export { inverseDistanceGrid, type IdwOptions } from './idw';
+export { semivariance, sill, structure } from './variogram';
+export { empiricalVariogram, defaultLagClasses, DEFAULT_LAGS } from './empirical';
+export {
+	fitVariogram,
+	fitBestVariogram,
+	rankVariogramModels,
+	fitVariogramToPoints,
+	wlsObjective
+} from './fit';
+export { ordinaryKrigingGrid, krigePoint, type KrigingOptions } from './kriging';
+export { crossValidate, crossValidationResiduals, type CrossValidationResidual } from './crossval';
+export { assertNoExactDuplicates, mergeDuplicateSamples } from './duplicates';
+export { maskByDistance } from './mask';
+export {
+	contourGrid,
+	contoursToProjected,
+	gridToProjected,
+	type ContourCollection,
+	type ContourProperties
+} from './contours';
+export { mulberry32, normalGenerator, simulateGaussianField } from './random';
