@@ -7,6 +7,8 @@ declare global {
 		}
 		interface Locals {
 			viewer: import('$lib/server/access').Viewer;
+			user: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['user'] | null;
+			session: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['session'] | null;
 		}
 		// interface PageData {}
 		// interface PageState {}

@@ -1,8 +1,11 @@
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
-import { ANONYMOUS } from '$lib/server/access';
+import { building } from '$app/environment';
+import { svelteKitHandler } from 'better-auth/svelte-kit';
+import { auth } from '$lib/server/auth';
 import { config } from '$lib/server/config';
-import { closeDb } from '$lib/server/db';
+import { closeDb, getDb } from '$lib/server/db';
 import { closeMailer } from '$lib/server/mail';
+import { viewerFor } from '$lib/server/viewer';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {
@@ -15,8 +18,11 @@ export const init: ServerInit = async () => {
 };
 
 export const handle: Handle = async ({ event, resolve }) => {
-	event.locals.viewer = ANONYMOUS;
-	return resolve(event);
+	const current = building ? null : await auth().api.getSession({ headers: event.request.headers });
+	event.locals.user = current?.user ?? null;
+	event.locals.session = current?.session ?? null;
+	event.locals.viewer = await viewerFor(getDb(), event.locals.user);
+	return svelteKitHandler({ event, resolve, auth: auth(), building });
 };
 
 /** Unexpected errors: log them with an id the user can quote; show nothing internal. */

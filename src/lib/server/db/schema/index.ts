@@ -1,3 +1,5 @@
 export * from './organisations';
 export * from './datasets';
 export * from './sites';
+export * from './sign-in-failures';
+export * from './auth';

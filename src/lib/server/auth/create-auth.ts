@@ -1,0 +1,133 @@
+import { betterAuth, type BetterAuthPlugin } from 'better-auth';
+import { drizzleAdapter } from 'better-auth/adapters/drizzle';
+import { admin, organization } from 'better-auth/plugins';
+import { createAccessControl } from 'better-auth/plugins/access';
+import { defaultStatements as adminStatements } from 'better-auth/plugins/admin/access';
+import type { Db } from '../db/client';
+import * as schema from '../db/schema';
+import { mailTemplates, type MailContent } from '../mail-templates';
+import { ac, roles, ROLE_LABELS, isOrgRole } from '../permissions';
+import { signInGuard } from './sign-in-guard';
+
+export interface AuthSettings {
+	db: Db;
+	secret: string;
+	baseURL: string;
+	/** Deliver a message; the app passes SMTP, tests may pass a recorder. */
+	send: (to: string, mail: MailContent) => Promise<void>;
+	production: boolean;
+	/** SvelteKit cookie bridge for form actions (better-auth/svelte-kit sveltekitCookies). */
+	extraPlugins?: BetterAuthPlugin[];
+}
+
+// Platform administration without impersonation: the statement lists every admin action but
+// 'impersonate' and 'impersonate-admins', so those endpoints refuse everyone.
+const platformAc = createAccessControl(adminStatements);
+const platformRoles = {
+	admin: platformAc.newRole({
+		user: ['create', 'list', 'set-role', 'ban', 'delete', 'set-password', 'get', 'update'],
+		session: ['list', 'revoke', 'delete']
+	}),
+	user: platformAc.newRole({ user: [], session: [] })
+};
+
+/** Build the better-auth instance. Pure of SvelteKit so scripts and tests can create one. */
+export function createAuth(s: AuthSettings) {
+	const link = (path: string, token: string) =>
+		`${s.baseURL}${path}?token=${encodeURIComponent(token)}`;
+	return betterAuth({
+		appName: 'Thermalith',
+		baseURL: s.baseURL,
+		secret: s.secret,
+		trustedOrigins: [s.baseURL],
+		database: drizzleAdapter(s.db, {
+			provider: 'pg',
+			schema: { ...schema, organisation: schema.organisation }
+		}),
+		emailAndPassword: {
+			enabled: true,
+			minPasswordLength: 10,
+			// Unverified accounts may sign in and browse; uploading checks emailVerified.
+			requireEmailVerification: false,
+			resetPasswordTokenExpiresIn: 60 * 60,
+			revokeSessionsOnPasswordReset: true,
+			sendResetPassword: async ({ user, token }) => {
+				await s.send(
+					user.email,
+					mailTemplates.resetPassword(user.name, link('/reset-password', token))
+				);
+			}
+		},
+		emailVerification: {
+			sendOnSignUp: true,
+			autoSignInAfterVerification: true,
+			expiresIn: 24 * 60 * 60,
+			sendVerificationEmail: async ({ user, token }) => {
+				await s.send(
+					user.email,
+					mailTemplates.verifyEmail(user.name, link('/verify-email', token))
+				);
+			}
+		},
+		user: {
+			changeEmail: {
+				enabled: true,
+				sendChangeEmailConfirmation: async ({ user, newEmail, token }) => {
+					await s.send(
+						newEmail,
+						mailTemplates.changeEmail(user.name, newEmail, link('/verify-email', token))
+					);
+				}
+			}
+		},
+		session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
+		rateLimit: {
+			enabled: true,
+			storage: 'database',
+			window: 60,
+			max: 200,
+			customRules: {
+				'/sign-in/email': { window: 60, max: 20 },
+				'/sign-up/email': { window: 60, max: 10 },
+				'/request-password-reset': { window: 300, max: 5 }
+			}
+		},
+		advanced: { useSecureCookies: s.production && s.baseURL.startsWith('https://') },
+		hooks: signInGuard(s.db),
+		plugins: [
+			organization({
+				ac,
+				roles,
+				creatorRole: 'owner',
+				invitationExpiresIn: 7 * 24 * 60 * 60,
+				cancelPendingInvitationsOnReInvite: true,
+				schema: {
+					organization: {
+						modelName: 'organisation',
+						additionalFields: {
+							country: { type: 'string', required: false, input: true },
+							website: { type: 'string', required: false, input: true },
+							description: { type: 'string', required: false, input: true }
+						}
+					}
+				},
+				sendInvitationEmail: async ({ id, email, role, organization: org, inviter }) => {
+					const roleLabel = isOrgRole(role) ? ROLE_LABELS[role].toLowerCase() : role;
+					await s.send(
+						email,
+						mailTemplates.invitation(
+							org.name,
+							inviter.user.name,
+							roleLabel,
+							`${s.baseURL}/invitations/${id}`
+						)
+					);
+				}
+			}),
+			admin({ ac: platformAc, roles: platformRoles, adminRoles: ['admin'], defaultRole: 'user' }),
+			...(s.extraPlugins ?? [])
+		]
+	});
+}
+
+export type Auth = ReturnType<typeof createAuth>;

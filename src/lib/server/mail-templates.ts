@@ -1,0 +1,63 @@
+/**
+ * Thermalith's transactional messages: each has a plain-text and an HTML part, carries the
+ * product's name, and contains no tracking (no remote images, no redirecting links).
+ */
+export interface MailContent {
+	subject: string;
+	text: string;
+	html: string;
+}
+
+const escape = (s: string) =>
+	s.replace(
+		/[&<>"']/g,
+		(c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!
+	);
+
+function compose(
+	subject: string,
+	intro: string,
+	action: { label: string; url: string },
+	outro: string
+): MailContent {
+	const text = `${intro}\n\n${action.label}: ${action.url}\n\n${outro}\n\n— Thermalith`;
+	const html = `<!doctype html><html><body style="font-family:Lato,Arial,sans-serif;color:#1c242d;max-width:36rem">
+<p style="font-weight:bold;font-size:18px;color:#2b3642">Thermalith</p>
+<p>${escape(intro)}</p>
+<p><a href="${escape(action.url)}" style="display:inline-block;background:#d2771c;color:#11161c;padding:10px 16px;border-radius:6px;text-decoration:none;font-weight:bold">${escape(action.label)}</a></p>
+<p style="font-size:13px;color:#526877">Or paste this address into your browser: ${escape(action.url)}</p>
+<p style="font-size:13px;color:#526877">${escape(outro)}</p>
+</body></html>`;
+	return { subject: `${subject} · Thermalith`, text, html };
+}
+
+export const mailTemplates = {
+	verifyEmail: (name: string, url: string) =>
+		compose(
+			'Confirm your e-mail address',
+			`Hello ${name}, confirm this address to finish setting up your Thermalith account. Until then you can browse public data but not upload.`,
+			{ label: 'Confirm my address', url },
+			'If you did not sign up, ignore this message. The link expires in 24 hours.'
+		),
+	resetPassword: (name: string, url: string) =>
+		compose(
+			'Reset your password',
+			`Hello ${name}, someone (hopefully you) asked to reset the password of your Thermalith account.`,
+			{ label: 'Choose a new password', url },
+			'The link works once and expires in one hour. If you did not ask for it, ignore this message; your password stays as it is.'
+		),
+	changeEmail: (name: string, newEmail: string, url: string) =>
+		compose(
+			'Confirm your new e-mail address',
+			`Hello ${name}, confirm that your Thermalith account should use ${newEmail} from now on.`,
+			{ label: 'Confirm the change', url },
+			'If you did not ask for this, ignore this message and your address stays as it is.'
+		),
+	invitation: (organisation: string, inviter: string, role: string, url: string) =>
+		compose(
+			`Invitation to join ${organisation}`,
+			`${inviter} invited you to join ${organisation} on Thermalith as ${role}.`,
+			{ label: 'See the invitation', url },
+			'Sign in or create an account with this e-mail address to accept or decline. The invitation expires in 7 days.'
+		)
+};

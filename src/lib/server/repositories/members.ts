@@ -1,0 +1,58 @@
+import { and, asc, eq, gt } from 'drizzle-orm';
+import type { Db } from '../db/client';
+import { invitation, member, organisation, user } from '../db/schema';
+
+/** Members of an organisation with their names, e-mail addresses and roles. */
+export async function listMembers(db: Db, organisationId: string) {
+	return db
+		.select({
+			memberId: member.id,
+			userId: user.id,
+			name: user.name,
+			email: user.email,
+			role: member.role,
+			since: member.createdAt
+		})
+		.from(member)
+		.innerJoin(user, eq(member.userId, user.id))
+		.where(eq(member.organizationId, organisationId))
+		.orderBy(asc(user.name));
+}
+
+/** Invitations of an organisation still waiting for an answer and not expired. */
+export async function listPendingInvitations(db: Db, organisationId: string) {
+	return db
+		.select({
+			id: invitation.id,
+			email: invitation.email,
+			role: invitation.role,
+			expiresAt: invitation.expiresAt
+		})
+		.from(invitation)
+		.where(
+			and(
+				eq(invitation.organizationId, organisationId),
+				eq(invitation.status, 'pending'),
+				gt(invitation.expiresAt, new Date())
+			)
+		)
+		.orderBy(asc(invitation.email));
+}
+
+/** One invitation with its organisation's name, for the invitation page. */
+export async function findInvitation(db: Db, id: string) {
+	const [row] = await db
+		.select({
+			id: invitation.id,
+			email: invitation.email,
+			role: invitation.role,
+			status: invitation.status,
+			expiresAt: invitation.expiresAt,
+			organisationName: organisation.name,
+			organisationSlug: organisation.slug
+		})
+		.from(invitation)
+		.innerJoin(organisation, eq(invitation.organizationId, organisation.id))
+		.where(eq(invitation.id, id));
+	return row ?? null;
+}

@@ -1,0 +1,123 @@
+import { fail } from '@sveltejs/kit';
+import { eq } from 'drizzle-orm';
+import { z } from 'zod';
+import { auth } from '$lib/server/auth';
+import { authFailure } from '$lib/server/auth/errors';
+import { getDb } from '$lib/server/db';
+import { member, organisation } from '$lib/server/db/schema';
+import { requireUser } from '$lib/server/guards';
+import { parseForm } from '$lib/schemas/form';
+import { changePasswordSchema, emailOnlySchema, profileSchema } from '$lib/schemas/account';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireUser(event);
+	const sessions = await auth().api.listSessions({ headers: event.request.headers });
+	const memberships = await getDb()
+		.select({
+			id: organisation.id,
+			name: organisation.name,
+			slug: organisation.slug,
+			role: member.role
+		})
+		.from(member)
+		.innerJoin(organisation, eq(member.organizationId, organisation.id))
+		.where(eq(member.userId, user.id))
+		.orderBy(organisation.name);
+	const currentId = event.locals.session?.id;
+	return {
+		profile: { name: user.name, email: user.email, emailVerified: user.emailVerified },
+		activeOrganisationId: event.locals.session?.activeOrganizationId ?? null,
+		memberships,
+		// Never send session tokens to the page; actions look them up by id.
+		sessions: sessions.map((s) => ({
+			id: s.id,
+			current: s.id === currentId,
+			userAgent: s.userAgent ?? 'unknown browser',
+			ipAddress: s.ipAddress ?? '',
+			createdAt: s.createdAt.toISOString(),
+			expiresAt: s.expiresAt.toISOString()
+		}))
+	};
+};
+
+export const actions: Actions = {
+	profile: async (event) => {
+		requireUser(event, 'action');
+		const parsed = parseForm(profileSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { ...parsed, form: 'profile' });
+		await auth().api.updateUser({
+			body: { name: parsed.data.name },
+			headers: event.request.headers
+		});
+		return { form: 'profile', saved: true };
+	},
+	email: async (event) => {
+		requireUser(event, 'action');
+		const parsed = parseForm(emailOnlySchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { ...parsed, form: 'email' });
+		try {
+			await auth().api.changeEmail({
+				body: { newEmail: parsed.data.email, callbackURL: '/account' },
+				headers: event.request.headers
+			});
+		} catch (err) {
+			return authFailure(err, { form: 'email' });
+		}
+		return { form: 'email', sent: parsed.data.email };
+	},
+	password: async (event) => {
+		requireUser(event, 'action');
+		const parsed = parseForm(changePasswordSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { ...parsed, form: 'password' });
+		try {
+			await auth().api.changePassword({
+				body: {
+					currentPassword: parsed.data.currentPassword,
+					newPassword: parsed.data.password,
+					revokeOtherSessions: true
+				},
+				headers: event.request.headers
+			});
+		} catch (err) {
+			return authFailure(err, { form: 'password' });
+		}
+		return { form: 'password', saved: true };
+	},
+	revoke: async (event) => {
+		requireUser(event, 'action');
+		const id = z
+			.string()
+			.min(1)
+			.safeParse((await event.request.formData()).get('sessionId'));
+		if (!id.success) return fail(400, { form: 'sessions', message: 'No session chosen.' });
+		const sessions = await auth().api.listSessions({ headers: event.request.headers });
+		const target = sessions.find((s) => s.id === id.data);
+		if (!target) return fail(404, { form: 'sessions', message: 'That session has ended already.' });
+		await auth().api.revokeSession({
+			body: { token: target.token },
+			headers: event.request.headers
+		});
+		return { form: 'sessions', revoked: true };
+	},
+	revokeOthers: async (event) => {
+		requireUser(event, 'action');
+		await auth().api.revokeOtherSessions({ headers: event.request.headers });
+		return { form: 'sessions', revoked: true };
+	},
+	activate: async (event) => {
+		const user = requireUser(event, 'action');
+		const organisationId = String((await event.request.formData()).get('organisationId') ?? '');
+		if (!event.locals.viewer.organisationIds.includes(organisationId)) {
+			return fail(403, {
+				form: 'organisations',
+				message: 'You are not a member of that organisation.'
+			});
+		}
+		await auth().api.setActiveOrganization({
+			body: { organizationId: organisationId },
+			headers: event.request.headers
+		});
+		return { form: 'organisations', activated: organisationId, userId: user.id };
+	}
+};

@@ -1,0 +1,26 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { auth } from '$lib/server/auth';
+import { authFailure } from '$lib/server/auth/errors';
+import { parseForm } from '$lib/schemas/form';
+import { signInSchema } from '$lib/schemas/account';
+import { safeNext } from '$lib/server/safe-next';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = ({ locals, url }) => {
+	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));
+	return { reset: url.searchParams.has('reset'), next: url.searchParams.get('next') ?? '' };
+};
+
+export const actions: Actions = {
+	default: async ({ request, url }) => {
+		const form = await request.formData();
+		const parsed = parseForm(signInSchema, form);
+		if (!parsed.ok) return fail(400, parsed);
+		try {
+			await auth().api.signInEmail({ body: parsed.data, headers: request.headers });
+		} catch (err) {
+			return authFailure(err, { values: { email: parsed.data.email } });
+		}
+		redirect(303, safeNext(String(form.get('next') ?? url.searchParams.get('next') ?? '')));
+	}
+};

@@ -1,0 +1,41 @@
+import { fail } from '@sveltejs/kit';
+import { APIError } from 'better-auth/api';
+import { auth } from '$lib/server/auth';
+import { authFailure } from '$lib/server/auth/errors';
+import { parseForm } from '$lib/schemas/form';
+import { emailOnlySchema } from '$lib/schemas/account';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ url, request, locals }) => {
+	const token = url.searchParams.get('token');
+	if (!token) {
+		return {
+			state: 'sent' as const,
+			email: url.searchParams.get('sent') ?? locals.user?.email ?? ''
+		};
+	}
+	try {
+		await auth().api.verifyEmail({ query: { token }, headers: request.headers });
+		return { state: 'verified' as const, email: '' };
+	} catch (err) {
+		if (err instanceof APIError)
+			return { state: 'invalid' as const, email: locals.user?.email ?? '' };
+		throw err;
+	}
+};
+
+export const actions: Actions = {
+	resend: async ({ request }) => {
+		const parsed = parseForm(emailOnlySchema, await request.formData());
+		if (!parsed.ok) return fail(400, parsed);
+		try {
+			await auth().api.sendVerificationEmail({
+				body: { email: parsed.data.email },
+				headers: request.headers
+			});
+		} catch (err) {
+			return authFailure(err);
+		}
+		return { resent: true };
+	}
+};

@@ -1,0 +1,105 @@
+import { testEnv } from './env';
+
+/**
+ * A minimal browser stand-in for form posts: keeps cookies, sends the Origin header SvelteKit's
+ * CSRF check wants, and never follows redirects so tests can assert them.
+ */
+export class Client {
+	private cookies = new Map<string, string>();
+
+	private cookieHeader() {
+		return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+	}
+
+	private remember(res: Response) {
+		for (const line of res.headers.getSetCookie()) {
+			const [pair, ...attrs] = line.split(';');
+			const eq = pair.indexOf('=');
+			const name = pair.slice(0, eq).trim();
+			const value = pair.slice(eq + 1).trim();
+			const expired = attrs.some((a) => /max-age=0\b/i.test(a.trim()));
+			if (expired || value === '') this.cookies.delete(name);
+			else this.cookies.set(name, value);
+		}
+	}
+
+	async get(path: string): Promise<Response> {
+		const res = await fetch(testEnv.appUrl() + path, {
+			headers: { cookie: this.cookieHeader(), accept: 'text/html' },
+			redirect: 'manual'
+		});
+		this.remember(res);
+		return res;
+	}
+
+	/** POST a form to a page action (`?/name`) or default action, as a browser without JavaScript. */
+	async post(path: string, fields: Record<string, string>): Promise<Response> {
+		const res = await fetch(testEnv.appUrl() + path, {
+			method: 'POST',
+			headers: {
+				'content-type': 'application/x-www-form-urlencoded',
+				origin: testEnv.appUrl(),
+				cookie: this.cookieHeader(),
+				// Without it SvelteKit answers a form post with its JSON envelope (status 200).
+				accept: 'text/html'
+			},
+			body: new URLSearchParams(fields).toString(),
+			redirect: 'manual'
+		});
+		this.remember(res);
+		return res;
+	}
+
+	/** POST JSON to a better-auth endpoint under /api/auth, as its browser client would. */
+	async api(path: string, body: unknown): Promise<Response> {
+		const res = await fetch(`${testEnv.appUrl()}/api/auth${path}`, {
+			method: 'POST',
+			headers: {
+				'content-type': 'application/json',
+				origin: testEnv.appUrl(),
+				cookie: this.cookieHeader(),
+				// Without it SvelteKit answers a form post with its JSON envelope (status 200).
+				accept: 'text/html'
+			},
+			body: JSON.stringify(body),
+			redirect: 'manual'
+		});
+		this.remember(res);
+		return res;
+	}
+
+	get signedIn() {
+		return [...this.cookies.keys()].some((k) => k.includes('session_token'));
+	}
+}
+
+/** Sign in through the sign-in form; throws unless it redirects with a session cookie. */
+export async function signIn(email: string, password: string): Promise<Client> {
+	const client = new Client();
+	const res = await client.post('/sign-in', { email, password });
+	if (res.status !== 303 || !client.signedIn) {
+		throw new Error(
+			`sign-in as ${email} failed with ${res.status}: ${(await res.text()).slice(0, 200)}`
+		);
+	}
+	return client;
+}
+
+/** Messages the mail catcher holds for an address, newest first. */
+export async function mailFor(
+	address: string
+): Promise<{ subject: string; text: string; html: string }[]> {
+	const res = await fetch(
+		`${testEnv.mailViewerUrl()}/api/messages?to=${encodeURIComponent(address)}`
+	);
+	return res.json();
+}
+
+/** The first link to the app in a plain-text message. */
+export function linkIn(text: string): URL {
+	const match = text.match(/https?:\/\/\S+/);
+	if (!match) throw new Error(`no link in message: ${text}`);
+	return new URL(match[0]);
+}
+
+export const DEMO_PASSWORD = 'korvald-demo-2026';
