@@ -1,0 +1,100 @@
+import { describe, expect, it } from 'vitest';
+import { checkMapping, suggestMapping, unmappedColumns } from './mapping';
+
+const pick = (headers: string[]) => {
+	const m = suggestMapping(headers);
+	return Object.fromEntries(
+		Object.entries(m).map(([k, v]) => [k, `${headers[v!.column]}${v!.unit ? ` [${v!.unit}]` : ''}`])
+	);
+};
+
+describe('suggestMapping', () => {
+	it('recognises synonyms, ignoring case, spacing and punctuation', () => {
+		expect(pick(['HF', 'lat', 'Longitude', 'TC', 'Site ID'])).toEqual({
+			heatFlow: 'HF [mW/m2]',
+			lat: 'lat',
+			lon: 'Longitude',
+			conductivity: 'TC [W/m/K]',
+			code: 'Site ID'
+		});
+		expect(pick(['q', 'k', 'Easting', 'NORTHING', 'well'])).toEqual({
+			heatFlow: 'q [mW/m2]',
+			conductivity: 'k [W/m/K]',
+			x: 'Easting',
+			y: 'NORTHING',
+			code: 'well'
+		});
+		expect(pick(['Thermal Conductivity', 'latitude'])).toEqual({
+			conductivity: 'Thermal Conductivity [W/m/K]',
+			lat: 'latitude'
+		});
+	});
+	it('takes units from a bracket or a suffix, and a σ column inherits its value column unit', () => {
+		expect(pick(['heat flow (mW/m2)', 'heat flow (HFU)'])).toEqual({
+			heatFlow: 'heat flow (mW/m2) [mW/m2]'
+		});
+		expect(pick(['Heat Flow [HFU]', 'HF sigma'])).toEqual({
+			heatFlow: 'Heat Flow [HFU] [HFU]',
+			heatFlowSigma: 'HF sigma [HFU]'
+		});
+		expect(
+			pick([
+				'heat_flow_W_m2',
+				'q_err',
+				'Gradient °F/100ft',
+				'k (mcal/cm/s/°C)',
+				'A (µW/m³)',
+				'top depth ft',
+				'Surface temp K'
+			])
+		).toEqual({
+			heatFlow: 'heat_flow_W_m2 [W/m2]',
+			heatFlowSigma: 'q_err [W/m2]',
+			gradient: 'Gradient °F/100ft [degF/100ft]',
+			conductivity: 'k (mcal/cm/s/°C) [mcal/cm/s/degC]',
+			heatProduction: 'A (µW/m³) [uW/m3]',
+			topDepth: 'top depth ft [ft]',
+			surfaceTemperature: 'Surface temp K [K]'
+		});
+		expect(pick(['σ HF', '±k'])).toEqual({
+			heatFlowSigma: 'σ HF [mW/m2]',
+			conductivitySigma: '±k [W/m/K]'
+		});
+	});
+	it('leaves unknown headers unmapped and lists them', () => {
+		const headers = ['code', 'x', 'y', 'colour'];
+		const m = suggestMapping(headers);
+		expect(unmappedColumns(m, headers)).toEqual(['colour']);
+	});
+});
+
+describe('checkMapping', () => {
+	it('requires a code and a full coordinate pair, one field per column, valid units', () => {
+		const codes = (m: Parameters<typeof checkMapping>[0]) =>
+			checkMapping(m, ['a', 'b', 'c']).map((i) => i.code);
+		expect(codes({})).toEqual(['mapping.no-code', 'mapping.no-coordinates']);
+		expect(codes({ code: { column: 0 }, x: { column: 1 } })).toEqual([
+			'mapping.no-coordinates',
+			'mapping.half-xy'
+		]);
+		expect(codes({ code: { column: 0 }, lon: { column: 1 }, lat: { column: 1 } })).toEqual([
+			'mapping.column-twice'
+		]);
+		expect(
+			codes({
+				code: { column: 0 },
+				lon: { column: 1 },
+				lat: { column: 2 },
+				heatFlow: { column: 5, unit: 'mW/m2' }
+			})
+		).toEqual(['mapping.bad-column']);
+		expect(
+			codes({
+				code: { column: 0 },
+				x: { column: 1 },
+				y: { column: 2 },
+				conductivity: { column: 0, unit: 'furlong' }
+			})
+		).toEqual(['mapping.column-twice', 'mapping.bad-unit']);
+	});
+});

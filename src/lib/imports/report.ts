@@ -1,0 +1,22 @@
+// The preview's issues as a downloadable CSV (row, severity, column, message).
+
+import Papa from 'papaparse';
+import type { ImportIssue } from './types';
+
+/** Renders issues as CSV text with a header; row is empty for whole-file issues. */
+export function issuesToCsv(issues: readonly ImportIssue[]): string {
+	return (
+		Papa.unparse(
+			{
+				fields: ['row', 'severity', 'column', 'message'],
+				data: issues.map((i) => [
+					i.row === null ? '' : String(i.row),
+					i.severity,
+					i.column,
+					i.message
+				])
+			},
+			{ newline: '\n', quotes: false, escapeFormulae: true }
+		) + '\n'
+	);
+}
