@@ -31,6 +31,11 @@ export const envSchema = z
 		MAIL_VIEWER_URL: url(['http:', 'https:']).optional(),
 		ORIGIN: url(['http:', 'https:']).optional(),
 		BETTER_AUTH_SECRET: z.string().min(32, { message: 'must be at least 32 characters' }),
+		ATTACHMENT_MAX_BYTES: z.coerce
+			.number()
+			.int()
+			.min(1024)
+			.default(50 * 1024 * 1024),
 		THERMALITH_PROFILE: z.enum(['dev', 'start', 'test', 'production']).default('production')
 	})
 	.refine((e) => e.SMTP_URL || e.SMTP_HOST, {

@@ -3,6 +3,7 @@ import { describe, expect, it, vi } from 'vitest';
 import SitePanel from './SitePanel.svelte';
 
 const site = {
+	id: '0b7c6a3e-0000-4000-8000-000000000007',
 	code: 'KGS-007',
 	name: 'Holmby borehole',
 	heatFlowMWm2: 71.26,
@@ -23,6 +24,9 @@ describe('SitePanel', () => {
 		expect(panel).toContain('Borehole, Bullard method');
 		expect(panel).toContain('Constrained');
 		expect(panel).toContain('59.5000° N, 8.1235° E');
+		expect(screen.getByRole('link', { name: /Open the site/ }).getAttribute('href')).toBe(
+			'/sites/0b7c6a3e-0000-4000-8000-000000000007'
+		);
 	});
 
 	it('shows dashes for missing values and calls onclose from the close button', async () => {

@@ -3,3 +3,5 @@ export * from './datasets';
 export * from './sites';
 export * from './sign-in-failures';
 export * from './auth';
+export * from './site-data';
+export * from './files';

@@ -1,0 +1,77 @@
+import { error } from '@sveltejs/kit';
+import { eq, sql } from 'drizzle-orm';
+import type { Viewer } from '../access';
+import type { Db } from '../db/client';
+import { importBatch, site, type NewSite } from '../db/schema';
+import type { ImportPayload } from './payload';
+import { serverPreview } from './preview';
+
+const CHUNK_ROWS = 1000;
+
+/**
+ * Validate again and, when nothing blocks, insert every accepted row in ONE transaction, in the
+ * background. Progress is written to import_batch from outside the transaction, so any app
+ * instance can report it; a failure rolls the whole file back and records why.
+ */
+export async function startImport(
+	db: Db,
+	viewer: Viewer,
+	datasetId: string,
+	payload: ImportPayload
+) {
+	const { preview, previousImport } = await serverPreview(db, viewer, datasetId, payload);
+	if (!preview.canImport || preview.errorCount > 0) {
+		error(
+			400,
+			`${preview.errorCount} rows have errors; fix them (see the preview report) and import again. Nothing was written.`
+		);
+	}
+	if (previousImport && !payload.allowReimport) {
+		error(
+			409,
+			`This file was imported into this dataset on ${previousImport.at.toISOString().slice(0, 10)}. Confirm to import it again.`
+		);
+	}
+	const rows: NewSite[] = preview.rows.flatMap((r) => (r.site ? [{ ...r.site, datasetId }] : []));
+	const [batch] = await db
+		.insert(importBatch)
+		.values({
+			datasetId,
+			fileName: payload.fileName,
+			fileSha256: payload.sha256,
+			totalRows: rows.length,
+			createdBy: viewer.userId
+		})
+		.returning({ id: importBatch.id });
+	void insertAll(db, batch.id, datasetId, rows);
+	return { batchId: batch.id, rows: rows.length, warnings: preview.warningCount };
+}
+
+async function insertAll(db: Db, batchId: string, datasetId: string, rows: NewSite[]) {
+	try {
+		await db.transaction(async (tx) => {
+			for (let i = 0; i < rows.length; i += CHUNK_ROWS) {
+				await tx.insert(site).values(rows.slice(i, i + CHUNK_ROWS));
+				await db
+					.update(importBatch)
+					.set({ doneRows: Math.min(rows.length, i + CHUNK_ROWS) })
+					.where(eq(importBatch.id, batchId));
+			}
+			await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${datasetId}`);
+		});
+		await db
+			.update(importBatch)
+			.set({ status: 'done', finishedAt: new Date() })
+			.where(eq(importBatch.id, batchId));
+	} catch (err) {
+		console.error(`[import ${batchId}] rolled back`, err);
+		const message =
+			(err as { code?: string }).code === '23505'
+				? 'A site code in the file was added to the dataset meanwhile; nothing was written.'
+				: 'The import failed and was rolled back; nothing was written.';
+		await db
+			.update(importBatch)
+			.set({ status: 'failed', error: message, doneRows: 0, finishedAt: new Date() })
+			.where(eq(importBatch.id, batchId));
+	}
+}

@@ -1,0 +1,238 @@
+import { error, fail } from '@sveltejs/kit';
+import { version } from '$app/environment';
+import { eq } from 'drizzle-orm';
+import { z } from 'zod';
+import {
+	parseConductivitySamples,
+	parseLas,
+	temperatureLogFromCsv,
+	temperatureLogFromLas,
+	ImportFormatError
+} from '$lib/imports';
+import { heatFlowFromLog, ThermalInputError } from '$lib/thermal';
+import { qualityClass } from '$lib/sites/quality';
+import { getDb } from '$lib/server/db';
+import {
+	conductivitySample,
+	heatFlowComputation,
+	site,
+	temperatureLog
+} from '$lib/server/db/schema';
+import { requireUser } from '$lib/server/guards';
+import { siteForViewer, siteMeasurements } from '$lib/server/repositories/site-detail';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
+
+const MAX_LOG_BYTES = 5 * 1024 * 1024;
+
+export const load: PageServerLoad = async ({ params, locals }) => {
+	const db = getDb();
+	const found = await siteForViewer(db, locals.viewer, params.id);
+	const m = await siteMeasurements(db, params.id);
+	return {
+		site: { ...found.site, lon: found.lon, lat: found.lat },
+		dataset: {
+			id: found.dataset.id,
+			title: found.dataset.title,
+			licence: found.dataset.licence,
+			citation: found.dataset.citation
+		},
+		organisationName: found.organisationName,
+		can: { edit: found.can.upload },
+		logs: m.logs.map((l) => ({
+			id: l.id,
+			name: l.name,
+			depthM: l.depthM,
+			temperatureC: l.temperatureC,
+			createdAt: l.createdAt
+		})),
+		samples: m.samples.map((s) => ({
+			topM: s.topM,
+			bottomM: s.bottomM,
+			conductivityWmK: s.conductivityWmK,
+			sigmaWmK: s.sigmaWmK ?? undefined
+		})),
+		computations: m.computations,
+		files: m.files.map(({ thumbnailKey, ...f }) => ({ ...f, hasThumbnail: Boolean(thumbnailKey) }))
+	};
+};
+
+/** The site, if the user may change it (uploader of its dataset, confirmed address). */
+async function editableSite(event: RequestEvent) {
+	const user = requireUser(event, 'action');
+	if (!user.emailVerified) error(403, 'Confirm your e-mail address before you upload.');
+	const found = await siteForViewer(getDb(), event.locals.viewer, event.params.id);
+	if (!found.can.upload) error(403, 'Your role does not allow changing this site now.');
+	return { user, found };
+}
+
+async function uploadedText(
+	form: FormData,
+	name: string
+): Promise<{ text: string; fileName: string } | string> {
+	const file = form.get(name);
+	if (!(file instanceof File) || file.size === 0) return 'Choose a file first.';
+	if (file.size > MAX_LOG_BYTES)
+		return `The file is larger than ${MAX_LOG_BYTES / 1024 / 1024} MB.`;
+	return { text: await file.text(), fileName: file.name };
+}
+
+const computeSchema = z
+	.object({
+		logId: z.string().uuid('Choose a temperature log.'),
+		method: z.enum(['interval', 'bullard']),
+		fromM: z.coerce.number({ message: 'Enter the top of the fitted range in metres.' }).min(0),
+		toM: z.coerce.number({ message: 'Enter the bottom of the fitted range in metres.' }).positive(),
+		save: z.string().optional()
+	})
+	.refine((v) => v.toM > v.fromM, {
+		path: ['toM'],
+		message: 'The bottom of the range must be below its top.'
+	});
+
+export const actions: Actions = {
+	log: async (event) => {
+		const { user } = await editableSite(event);
+		const form = await event.request.formData();
+		const upload = await uploadedText(form, 'file');
+		if (typeof upload === 'string') return fail(400, { form: 'log', message: upload });
+		try {
+			const isLas = /\.las$/i.test(upload.fileName) || upload.text.trimStart().startsWith('~');
+			const log = isLas
+				? temperatureLogFromLas(parseLas(upload.text))
+				: temperatureLogFromCsv(upload.text, {
+						depthUnit: String(form.get('depthUnit') ?? 'm'),
+						temperatureUnit: String(form.get('temperatureUnit') ?? 'degC')
+					});
+			if (!log.ok || log.depthM.length < 3) {
+				return fail(400, {
+					form: 'log',
+					message:
+						log.issues.map((i) => i.message).join(' ') ||
+						'The log needs at least 3 readable points.'
+				});
+			}
+			await getDb().insert(temperatureLog).values({
+				siteId: event.params.id,
+				name: upload.fileName,
+				sourceFileName: upload.fileName,
+				depthM: log.depthM,
+				temperatureC: log.temperatureC,
+				createdBy: user.id
+			});
+			return { form: 'log', saved: log.depthM.length, notes: log.issues.map((i) => i.message) };
+		} catch (err) {
+			if (err instanceof ImportFormatError) return fail(400, { form: 'log', message: err.message });
+			throw err;
+		}
+	},
+	conductivity: async (event) => {
+		await editableSite(event);
+		const upload = await uploadedText(await event.request.formData(), 'file');
+		if (typeof upload === 'string') return fail(400, { form: 'conductivity', message: upload });
+		try {
+			const parsed = parseConductivitySamples(upload.text);
+			if (!parsed.ok || parsed.intervals.length === 0) {
+				return fail(400, {
+					form: 'conductivity',
+					message: parsed.issues.map((i) => i.message).join(' ') || 'No samples found.'
+				});
+			}
+			// The new file replaces the site's samples, in one transaction.
+			await getDb().transaction(async (tx) => {
+				await tx.delete(conductivitySample).where(eq(conductivitySample.siteId, event.params.id));
+				await tx.insert(conductivitySample).values(
+					parsed.intervals.map((i) => ({
+						siteId: event.params.id,
+						topM: i.topM,
+						bottomM: i.bottomM,
+						conductivityWmK: i.conductivityWmK,
+						sigmaWmK: i.sigmaWmK ?? null
+					}))
+				);
+			});
+			return { form: 'conductivity', saved: parsed.intervals.length };
+		} catch (err) {
+			if (err instanceof ImportFormatError)
+				return fail(400, { form: 'conductivity', message: err.message });
+			throw err;
+		}
+	},
+	compute: async (event) => {
+		const { user, found } = await editableSite(event);
+		const raw = Object.fromEntries(await event.request.formData());
+		const parsed = computeSchema.safeParse(raw);
+		if (!parsed.success)
+			return fail(400, { form: 'compute', message: parsed.error.issues[0].message });
+		const { logId, method, fromM, toM, save } = parsed.data;
+		const db = getDb();
+		const m = await siteMeasurements(db, event.params.id);
+		const log = m.logs.find((l) => l.id === logId);
+		if (!log)
+			return fail(404, { form: 'compute', message: 'That log does not belong to this site.' });
+		if (m.samples.length === 0)
+			return fail(400, {
+				form: 'compute',
+				message: 'Upload conductivity samples covering the range first.'
+			});
+		let estimate;
+		try {
+			estimate = heatFlowFromLog({
+				depthM: log.depthM,
+				temperatureC: log.temperatureC,
+				conductivity: m.samples.map((s) => ({
+					topM: s.topM,
+					bottomM: s.bottomM,
+					conductivityWmK: s.conductivityWmK,
+					sigmaWmK: s.sigmaWmK ?? undefined
+				})),
+				method,
+				fromM,
+				toM
+			});
+		} catch (err) {
+			if (err instanceof ThermalInputError)
+				return fail(400, { form: 'compute', message: err.message });
+			throw err;
+		}
+		await db.insert(heatFlowComputation).values({
+			siteId: event.params.id,
+			logId,
+			method,
+			fromM,
+			toM,
+			heatFlowMWm2: estimate.heatFlowMWm2,
+			sigmaMWm2: estimate.sigmaMWm2,
+			gradientKPerKm: estimate.gradientKPerKm,
+			sigmaGradientKPerKm: estimate.sigmaGradientKPerKm,
+			meanConductivityWmK: estimate.meanConductivityWmK,
+			samples: estimate.samples,
+			engineVersion: `thermalith ${version}`,
+			createdBy: user.id
+		});
+		if (save) {
+			const siteMethod = method === 'bullard' ? 'bullard' : 'borehole_interval';
+			await db
+				.update(site)
+				.set({
+					heatFlowMWm2: estimate.heatFlowMWm2,
+					heatFlowSigmaMWm2: estimate.sigmaMWm2,
+					gradientKPerKm: estimate.gradientKPerKm,
+					gradientSigmaKPerKm: estimate.sigmaGradientKPerKm,
+					conductivityWmK: estimate.meanConductivityWmK,
+					conductivitySamples: m.samples.length,
+					topDepthM: fromM,
+					bottomDepthM: toM,
+					method: siteMethod,
+					qualityClass: qualityClass({
+						heatFlowMWm2: estimate.heatFlowMWm2,
+						heatFlowSigmaMWm2: estimate.sigmaMWm2,
+						method: siteMethod,
+						conductivitySamples: m.samples.length
+					}),
+					updatedAt: new Date()
+				})
+				.where(eq(site.id, found.site.id));
+		}
+		return { form: 'compute', estimate, saved: Boolean(save) };
+	}
+};
