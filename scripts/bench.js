@@ -7,11 +7,18 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { ensureNodeModules } from './lib/deps.js';
-import { ROOT } from './lib/config.js';
-import { run } from './lib/proc.js';
+import { ROOT, resolveConfig } from './lib/config.js';
+import { run, stopAll, stopOnSignals } from './lib/proc.js';
 
 await ensureNodeModules();
+stopOnSignals();
 const filter = process.argv[2];
+// Benchmarks that touch the database get a private, throw-away cluster of their own (bench profile).
+const config = resolveConfig('bench');
+const { startEmbeddedServices } = await import('./lib/services.js');
+const { applyMigrations } = await import('./migrate.js');
+await startEmbeddedServices(config, { freshDatabase: true, only: ['postgres'] });
+await applyMigrations(config.appEnv.DATABASE_URL);
 const files = fs
 	.readdirSync(path.join(ROOT, 'bench'))
 	.filter((f) => f.endsWith('.bench.ts') && (!filter || f.includes(filter)))
@@ -22,9 +29,10 @@ for (const file of files) {
 	const code = await run(
 		process.execPath,
 		[path.join(ROOT, 'node_modules/tsx/dist/cli.mjs'), path.join(ROOT, 'bench', file)],
-		{ cwd: ROOT }
+		{ cwd: ROOT, env: { ...process.env, ...config.appEnv } }
 	);
 	if (code !== 0) failed += 1;
 }
+await stopAll();
 console.log(`\n${files.length - failed} benchmark files ran, ${failed} failed`);
 process.exit(failed ? 1 : 0);

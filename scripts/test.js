@@ -23,6 +23,27 @@ const { ensureChromium, CHROMIUM_PATH } = await import('./lib/chromium.js');
 await ensureChromium();
 
 const config = resolveConfig('test');
+// One test run at a time: they share the test ports and database.
+const lock = path.join(config.storageDir, 'test-run.lock');
+fs.mkdirSync(config.storageDir, { recursive: true });
+try {
+	fs.writeFileSync(lock, String(process.pid), { flag: 'wx' });
+} catch {
+	const holder = Number(fs.readFileSync(lock, 'utf8'));
+	let alive = false;
+	try {
+		process.kill(holder, 0);
+		alive = true;
+	} catch {
+		alive = false;
+	}
+	if (alive) {
+		console.error(`another npm test (pid ${holder}) is running; wait for it to finish`);
+		process.exit(1);
+	}
+	fs.writeFileSync(lock, String(process.pid));
+}
+process.on('exit', () => fs.rmSync(lock, { force: true }));
 const { validateEnvironment } = await import('./lib/validate-env.js');
 validateEnvironment(config.appEnv);
 const env = { ...process.env, ...config.appEnv, CHROMIUM_PATH, TEST_APP_URL: config.appEnv.ORIGIN };

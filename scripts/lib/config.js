@@ -13,21 +13,25 @@ export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 
 /** Ports per profile: one block for development, another for tests, so both can run at once. */
 const PORTS = {
-	app: { dev: 5173, start: 3000, test: 3311 },
-	postgres: { dev: 54330, start: 54330, test: 54340 },
-	s3: { dev: 54331, start: 54331, test: 54341 },
-	smtp: { dev: 54332, start: 54332, test: 54342 },
-	mailWeb: { dev: 54333, start: 54333, test: 54343 }
+	app: { dev: 5173, start: 3000, test: 3311, bench: 3321 },
+	postgres: { dev: 54330, start: 54330, test: 54340, bench: 54350 },
+	s3: { dev: 54331, start: 54331, test: 54341, bench: 54351 },
+	smtp: { dev: 54332, start: 54332, test: 54342, bench: 54352 },
+	mailWeb: { dev: 54333, start: 54333, test: 54343, bench: 54353 }
 };
 
-/** @typedef {'dev' | 'start' | 'test'} Profile */
+/** @typedef {'dev' | 'start' | 'test' | 'bench'} Profile */
 
 /**
  * @param {Profile} profile
  * @param {NodeJS.ProcessEnv} [env]
  */
 export function resolveConfig(profile, env = process.env) {
-	const storageDir = path.join(ROOT, 'storage', profile === 'test' ? 'test' : 'local');
+	const storageDir = path.join(
+		ROOT,
+		'storage',
+		profile === 'dev' || profile === 'start' ? 'local' : profile
+	);
 	const host = '127.0.0.1';
 	/** @param {keyof typeof PORTS} name */
 	const port = (name) => PORTS[name][profile];
@@ -38,11 +42,12 @@ export function resolveConfig(profile, env = process.env) {
 		s3: !env.S3_ENDPOINT,
 		mail: !env.SMTP_URL && !env.SMTP_HOST
 	};
-	const database = profile === 'test' ? 'thermalith_test' : 'thermalith';
+	const database =
+		profile === 'dev' || profile === 'start' ? 'thermalith' : `thermalith_${profile}`;
 
 	/** @type {Record<string, string>} */
 	const appEnv = {
-		NODE_ENV: profile === 'dev' ? 'development' : profile === 'test' ? 'test' : 'production',
+		NODE_ENV: profile === 'dev' ? 'development' : profile === 'start' ? 'production' : 'test',
 		THERMALITH_PROFILE: profile,
 		HOST: env.HOST ?? host,
 		PORT: String(appPort),

@@ -9,10 +9,17 @@ import { canConnect, onStop, startService, waitForPort } from './proc.js';
 
 /**
  * @param {ReturnType<typeof import('./config.js').resolveConfig>} config
- * @param {{ freshDatabase?: boolean, freshObjects?: boolean }} [options]
+ * @param {{ freshDatabase?: boolean, freshObjects?: boolean, only?: ('postgres' | 's3' | 'mail')[] }} [options]
  */
 export async function startEmbeddedServices(config, options = {}) {
-	const { host, ports, storageDir, embedded } = config;
+	const { host, ports, storageDir } = config;
+	const wanted = options.only ?? ['postgres', 's3', 'mail'];
+	if (!wanted.includes('postgres') && !wanted.includes('s3') && !wanted.includes('mail')) return;
+	const embedded = {
+		postgres: config.embedded.postgres && wanted.includes('postgres'),
+		s3: config.embedded.s3 && wanted.includes('s3'),
+		mail: config.embedded.mail && wanted.includes('mail')
+	};
 	fs.mkdirSync(storageDir, { recursive: true });
 
 	if (embedded.postgres) {
@@ -21,7 +28,7 @@ export async function startEmbeddedServices(config, options = {}) {
 			dataDir: path.join(storageDir, 'postgres'),
 			host,
 			port: ports.postgres,
-			fast: config.profile === 'test'
+			fast: config.profile === 'test' || config.profile === 'bench'
 		});
 		onStop(stop);
 		ensureDatabase({
@@ -30,7 +37,7 @@ export async function startEmbeddedServices(config, options = {}) {
 			database: config.database,
 			recreate: options.freshDatabase
 		});
-	} else {
+	} else if (wanted.includes('postgres')) {
 		ok('using the PostgreSQL at DATABASE_URL (embedded cluster not started)');
 	}
 
@@ -48,7 +55,7 @@ export async function startEmbeddedServices(config, options = {}) {
 			'--bucket',
 			config.appEnv.S3_BUCKET
 		]);
-	} else {
+	} else if (wanted.includes('s3')) {
 		ok(`using the object store at S3_ENDPOINT (embedded S3 fake not started)`);
 	}
 
@@ -67,7 +74,7 @@ export async function startEmbeddedServices(config, options = {}) {
 			dir
 		]);
 		await waitForPort(host, ports.mailWeb);
-	} else {
+	} else if (wanted.includes('mail')) {
 		ok('using the SMTP server from SMTP_URL / SMTP_HOST (embedded mail catcher not started)');
 	}
 }

@@ -68,6 +68,22 @@ export class Client {
 		return res;
 	}
 
+	/** Send JSON to an app API route with this client's session. */
+	async json(path: string, body?: unknown, method = 'POST'): Promise<Response> {
+		const res = await fetch(testEnv.appUrl() + path, {
+			method,
+			headers: {
+				'content-type': 'application/json',
+				origin: testEnv.appUrl(),
+				cookie: this.cookieHeader()
+			},
+			body: body === undefined ? undefined : JSON.stringify(body),
+			redirect: 'manual'
+		});
+		this.remember(res);
+		return res;
+	}
+
 	get signedIn() {
 		return [...this.cookies.keys()].some((k) => k.includes('session_token'));
 	}

@@ -21,6 +21,7 @@ import { bucket, s3 } from './storage';
 const UPLOAD_URL_SECONDS = 15 * 60;
 const DOWNLOAD_URL_SECONDS = 60;
 const THUMBNAIL_PX = 320;
+const MB = 1024 * 1024;
 
 /** Start an upload: check the right to upload and the size, record a pending file, presign a PUT. */
 export async function startAttachmentUpload(
@@ -35,7 +36,7 @@ export async function startAttachmentUpload(
 	if (input.sizeBytes > max) {
 		error(
 			413,
-			`The file is ${(input.sizeBytes / 1e6).toFixed(1)} MB; the limit is ${(max / 1e6).toFixed(0)} MB.`
+			`The file is ${(input.sizeBytes / MB).toFixed(1)} MB; the limit is ${(max / MB).toFixed(0)} MB.`
 		);
 	}
 	if (input.siteId) {

@@ -36,7 +36,9 @@ export const envSchema = z
 			.int()
 			.min(1024)
 			.default(50 * 1024 * 1024),
-		THERMALITH_PROFILE: z.enum(['dev', 'start', 'test', 'production']).default('production')
+		THERMALITH_PROFILE: z
+			.enum(['dev', 'start', 'test', 'bench', 'production'])
+			.default('production')
 	})
 	.refine((e) => e.SMTP_URL || e.SMTP_HOST, {
 		message: 'set SMTP_URL (smtp://host:port) or SMTP_HOST and SMTP_PORT',

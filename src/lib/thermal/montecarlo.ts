@@ -20,7 +20,7 @@ import {
 } from './layer';
 import { percentilesInPlace } from './percentile';
 import { createRandom } from './random';
-import { PercentileTracker } from './tracker';
+import { SampleOrder } from './tracker';
 import { sampleDepthsM } from './sampling';
 import type { GeothermInput } from './types';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
@@ -202,7 +202,7 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 	// mapped back, which saves a transcendental per sample and depth.
 	let column = new Float64Array(n);
 	let previous = new Float64Array(n);
-	const tracker = new PercentileTracker(n, P);
+	const order = new SampleOrder(n);
 	const crossings = isotherms.map(() => new Float64Array(n).fill(Infinity));
 	// Samples that have not crossed each isotherm yet; crossed ones are swapped out of the list.
 	const pending = isotherms.map(() => Int32Array.from({ length: n }, (_, s) => s));
@@ -257,15 +257,10 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 		if (d === 0) {
 			p10C[0] = p50C[0] = p90C[0] = central.surfaceTemperatureC;
 		} else {
-			// Map both order statistics back to T before interpolating, so the result is type 7 in T.
-			const stats = tracker.update(column);
-			const [t10, t50, t90] = stats.map(([lo, hi, weight]) => {
-				const tLo = fromKirchhoffC(lo, b);
-				return weight === 0 ? tLo : tLo + weight * (fromKirchhoffC(hi, b) - tLo);
-			});
-			p10C[d] = t10;
-			p50C[d] = t50;
-			p90C[d] = t90;
+			order.update(column);
+			p10C[d] = bandValueC(order, P[0], b);
+			p50C[d] = bandValueC(order, P[1], b);
+			p90C[d] = bandValueC(order, P[2], b);
 		}
 		if (moments) {
 			let sum = 0;
@@ -308,6 +303,14 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 		samples: n,
 		seed
 	};
+}
+
+/** Type-7 percentile in T of the sorted U column: both order statistics are mapped back to T
+ * before interpolating, so the result is type 7 in T (interpolating in U would not be). */
+function bandValueC(order: SampleOrder, p: number, b: number): number {
+	const [lo, hi, weight] = order.ranks(p);
+	const tLo = fromKirchhoffC(lo, b);
+	return weight === 0 ? tLo : tLo + weight * (fromKirchhoffC(hi, b) - tLo);
 }
 
 /** U of an isotherm in a layer's transform; −∞ when 1 + bT <= 0 (every sample is hotter). */

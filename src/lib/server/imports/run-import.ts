@@ -47,17 +47,26 @@ export async function startImport(
 	return { batchId: batch.id, rows: rows.length, warnings: preview.warningCount };
 }
 
+/** Insert sites in one transaction, in chunks, calling onChunk (outside the transaction) after each. */
+export async function insertSites(
+	db: Db,
+	datasetId: string,
+	rows: NewSite[],
+	onChunk: (done: number) => Promise<void>
+) {
+	await db.transaction(async (tx) => {
+		for (let i = 0; i < rows.length; i += CHUNK_ROWS) {
+			await tx.insert(site).values(rows.slice(i, i + CHUNK_ROWS));
+			await onChunk(Math.min(rows.length, i + CHUNK_ROWS));
+		}
+		await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${datasetId}`);
+	});
+}
+
 async function insertAll(db: Db, batchId: string, datasetId: string, rows: NewSite[]) {
 	try {
-		await db.transaction(async (tx) => {
-			for (let i = 0; i < rows.length; i += CHUNK_ROWS) {
-				await tx.insert(site).values(rows.slice(i, i + CHUNK_ROWS));
-				await db
-					.update(importBatch)
-					.set({ doneRows: Math.min(rows.length, i + CHUNK_ROWS) })
-					.where(eq(importBatch.id, batchId));
-			}
-			await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${datasetId}`);
+		await insertSites(db, datasetId, rows, async (done) => {
+			await db.update(importBatch).set({ doneRows: done }).where(eq(importBatch.id, batchId));
 		});
 		await db
 			.update(importBatch)
