@@ -99,6 +99,22 @@ describe('map page', () => {
 		await panel.waitFor({ timeout: 5000 });
 		await expect(panel.textContent()).resolves.toContain(target.properties.code);
 		await screenshot(page, 'map');
+
+		// Filter to marine probes: the URL keeps the filter and the map shows only those sites.
+		const before = Number(await map.getAttribute('data-sites'));
+		await page.getByLabel('Marine probe').check();
+		await page.waitForURL(/method=marine_probe/);
+		const bounds = (await map.getAttribute('data-bounds'))!;
+		const marine = await (
+			await fetch(`${appUrl()}/api/v1/sites.geojson?bbox=${bounds}&method=marine_probe`)
+		).json();
+		expect(marine.features.length).toBeGreaterThan(0);
+		expect(marine.features.length).toBeLessThan(before);
+		await expect
+			.poll(async () => Number(await map.getAttribute('data-sites')), { timeout: 10_000 })
+			.toBe(marine.features.length);
+		await page.reload({ waitUntil: 'networkidle' });
+		expect(await page.getByLabel('Marine probe').isChecked()).toBe(true);
 		expect(errors).toEqual([]);
 		await page.close();
 	});

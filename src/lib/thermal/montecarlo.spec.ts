@@ -1,9 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { solveGeotherm } from './geotherm';
-import { monteCarloGeotherm } from './montecarlo';
+import { drawTruncated } from './distributions';
+import { monteCarloGeotherm, type MonteCarloInput } from './montecarlo';
+import { createRandom } from './random';
 import { NORMAL_Z90, uniformTemperatureBand } from './propagation';
-import type { GeothermInput } from './types';
+import type { CrustLayer, GeothermInput } from './types';
 import { expectClose, thrown } from './testing';
 
 const uniform: GeothermInput = {
@@ -193,5 +195,101 @@ describe('Monte Carlo geotherm bands', () => {
 			}),
 			{ numRuns: 60 }
 		);
+	});
+
+	it('equals a straightforward reference (one solveGeotherm per sample, a full sort per depth) to 1e-9 °C', () => {
+		// The reference redraws the inputs in the documented order (q, then k and A per layer) from
+		// the same seed, solves every sample's profile on its own and sorts each depth's temperatures.
+		const typeSeven = (sorted: number[], p: number) => {
+			const h = (sorted.length - 1) * p;
+			const k = Math.floor(h);
+			return k + 1 < sorted.length ? sorted[k] + (h - k) * (sorted[k + 1] - sorted[k]) : sorted[k];
+		};
+		const reference = (input: MonteCarloInput & { model: { surfaceHeatFlowMWm2: number } }) => {
+			const random = createRandom(input.seed!);
+			const n = input.samples!;
+			const profiles = Array.from({ length: n }, () => {
+				const q = drawTruncated(
+					random,
+					'normal',
+					input.model.surfaceHeatFlowMWm2,
+					input.heatFlowSigmaMWm2!,
+					0,
+					Infinity,
+					'q'
+				);
+				const layers: CrustLayer[] = input.model.layers.map((l, j) => ({
+					...l,
+					conductivityWmK: drawTruncated(
+						random,
+						'normal',
+						l.conductivityWmK,
+						input.layers![j].conductivitySigmaWmK!,
+						Number.MIN_VALUE,
+						Infinity,
+						'k'
+					),
+					heatProductionUWm3: drawTruncated(
+						random,
+						'normal',
+						l.heatProductionUWm3,
+						input.layers![j].heatProductionSigmaUWm3!,
+						0,
+						Infinity,
+						'a'
+					)
+				}));
+				return solveGeotherm({ ...input.model, surfaceHeatFlowMWm2: q, layers });
+			});
+			const depthM = profiles[0].depthM;
+			const band = { p10C: [] as number[], p50C: [] as number[], p90C: [] as number[] };
+			depthM.forEach((_, d) => {
+				const column = profiles.map((p) => p.temperatureC[d]).sort((a, b) => a - b);
+				band.p10C.push(typeSeven(column, 0.1));
+				band.p50C.push(typeSeven(column, 0.5));
+				band.p90C.push(typeSeven(column, 0.9));
+			});
+			return { depthM, ...band };
+		};
+		const layers: CrustLayer[] = [
+			{
+				thicknessM: 7_000,
+				conductivityWmK: 2.8,
+				heatProductionUWm3: 2,
+				heatProductionDecayM: 8_000
+			},
+			{
+				thicknessM: 9_000,
+				conductivityWmK: 2.4,
+				heatProductionUWm3: 0.7,
+				conductivityTempCoeffPerK: 1e-3
+			},
+			{
+				thicknessM: 14_000,
+				conductivityWmK: 3.1,
+				heatProductionUWm3: 0.1,
+				conductivityTempCoeffPerK: 3e-4
+			}
+		];
+		for (const seed of [1, 2, 17, 2024]) {
+			// Wide inputs on purpose, so samples cross each other often and the percentile ranks move.
+			const input = {
+				model: { surfaceTemperatureC: 8, surfaceHeatFlowMWm2: 70, depthStepM: 250, layers },
+				heatFlowSigmaMWm2: 12,
+				layers: layers.map((l) => ({
+					conductivitySigmaWmK: 0.2 * l.conductivityWmK,
+					heatProductionSigmaUWm3: 0.4 * l.heatProductionUWm3
+				})),
+				samples: 300 + seed,
+				seed
+			};
+			const got = monteCarloGeotherm(input);
+			const want = reference(input);
+			expect(got.depthM).toEqual(want.depthM);
+			for (const key of ['p10C', 'p50C', 'p90C'] as const)
+				got[key].forEach((v, d) =>
+					expectClose(v, want[key][d], { abs: 1e-9 }, `seed ${seed} ${key}[${d}]`)
+				);
+		}
 	});
 });

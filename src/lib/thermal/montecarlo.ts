@@ -10,7 +10,7 @@
 
 import { drawTruncated, type Distribution } from './distributions';
 import { ThermalInputError } from './errors';
-import { DEFAULT_DEPTH_STEP_M, prepareGeotherm } from './geotherm';
+import { DEFAULT_DEPTH_STEP_M, prepareGeotherm, type PreparedLayer } from './geotherm';
 import {
 	fromKirchhoffC,
 	heatFlowInLayerWm2,
@@ -19,8 +19,8 @@ import {
 	toKirchhoffC
 } from './layer';
 import { percentilesInPlace } from './percentile';
-import { createRandom } from './random';
-import { SampleOrder } from './tracker';
+import { createRandom, type Random } from './random';
+import { PercentileTracker } from './tracker';
 import { sampleDepthsM } from './sampling';
 import type { GeothermInput } from './types';
 import { requireFinite, requireNonNegative, requirePositive } from './validate';
@@ -125,63 +125,14 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 	const basal = input.model.surfaceHeatFlowMWm2 == null;
 	const qMean = (basal ? input.model.basalHeatFlowMWm2 : input.model.surfaceHeatFlowMWm2) as number;
 
-	// Per-layer columns over samples: conductivity, top heat production, top heat flow, top U.
-	const k0 = layers.map(() => new Float64Array(n));
-	const aTop = layers.map(() => new Float64Array(n));
-	const qTop = layers.map(() => new Float64Array(n));
-	const uTop = layers.map(() => new Float64Array(n));
-	const q0 = new Float64Array(n);
-	const qb = new Float64Array(n);
-	const random = createRandom(seed);
-	for (let s = 0; s < n; s++) {
-		const qDraw =
-			drawTruncated(random, qDist, qMean, sigmaQ, qMin, qMax, 'heatFlowSigmaMWm2') * 1e-3;
-		let production = 0;
-		for (let j = 0; j < L; j++) {
-			const u = uncertainties[j] ?? {};
-			const lay = layers[j];
-			k0[j][s] = drawTruncated(
-				random,
-				kDist,
-				lay.k0WmK,
-				u.conductivitySigmaWmK ?? 0,
-				Number.MIN_VALUE,
-				Infinity,
-				`layers[${j}].conductivitySigmaWmK`
-			);
-			aTop[j][s] =
-				drawTruncated(
-					random,
-					aDist,
-					lay.aTopWm3 * 1e6,
-					u.heatProductionSigmaUWm3 ?? 0,
-					0,
-					Infinity,
-					`layers[${j}].heatProductionSigmaUWm3`
-				) * 1e-6;
-			production += integratedHeatProductionWm2(aTop[j][s], lay.decayM, lay.bottomM - lay.topM);
-		}
-		let q = basal ? qDraw + production : qDraw;
-		let t = central.surfaceTemperatureC;
-		q0[s] = q;
-		for (let j = 0; j < L; j++) {
-			const lay = layers[j];
-			const thickness = lay.bottomM - lay.topM;
-			if (!(1 + lay.b * t > 0)) {
-				throw new ThermalInputError(
-					`layers[${j}].conductivityTempCoeffPerK`,
-					lay.b,
-					`makes 1 + b·T <= 0 in sample ${s}`
-				);
-			}
-			qTop[j][s] = q;
-			uTop[j][s] = toKirchhoffC(t, lay.b);
-			const u = kirchhoffInLayerC(uTop[j][s], q, aTop[j][s], lay.decayM, k0[j][s], thickness);
-			q = heatFlowInLayerWm2(q, aTop[j][s], lay.decayM, thickness);
-			t = fromKirchhoffC(u, lay.b);
-		}
-		qb[s] = basal ? qDraw : q;
-	}
+	const { k0, aTop, qTop, uTop, q0, qb } = drawSamples(
+		central.layers,
+		central.surfaceTemperatureC,
+		uncertainties,
+		n,
+		createRandom(seed),
+		{ basal, qMean, sigmaQ, qMin, qMax, qDist, kDist, aDist }
+	);
 	// U(z) = uTop + (qTop/k0)·sM − (aTop/k0)·w(sM): keep the two ratios so the depth loop has no division.
 	const qOverK = layers.map((_, j) => qTop[j].map((q, s) => q / k0[j][s]));
 	const aOverK = layers.map((_, j) => aTop[j].map((a, s) => a / k0[j][s]));
@@ -191,24 +142,27 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 		step
 	);
 	const D = depthM.length;
-	const p10C = new Array<number>(D);
-	const p50C = new Array<number>(D);
-	const p90C = new Array<number>(D);
+	const p10C = new Float64Array(D);
+	const p50C = new Float64Array(D);
+	const p90C = new Float64Array(D);
 	const moments = input.moments === true;
-	const meanC: number[] = [];
-	const sdC: number[] = [];
+	const meanC = new Float64Array(moments ? D : 0);
+	const sdC = new Float64Array(moments ? D : 0);
 	// The column holds the Kirchhoff variable U of the current layer, not T: T(U) is increasing, so
 	// ranks, percentiles and isotherm crossings can be found on U and only a handful of values
 	// mapped back, which saves a transcendental per sample and depth.
 	let column = new Float64Array(n);
 	let previous = new Float64Array(n);
-	const order = new SampleOrder(n);
+	const tracker = new PercentileTracker(n, P);
 	const crossings = isotherms.map(() => new Float64Array(n).fill(Infinity));
 	// Samples that have not crossed each isotherm yet; crossed ones are swapped out of the list.
 	const pending = isotherms.map(() => Int32Array.from({ length: n }, (_, s) => s));
 	const pendingCount = isotherms.map(() => n);
 	let prevB = layers[0].b;
 	let li = 0;
+	// The per-sample work lives in small functions over typed arrays (fillColumn, scanIsotherm,
+	// PercentileTracker.update): V8 optimises those once and keeps them, whereas loops inline in this long
+	// function were deoptimised and re-entered by on-stack replacement again and again.
 	for (let d = 0; d < D; d++) {
 		const z = depthM[d];
 		while (li < L - 1 && z > layers[li].bottomM) li++;
@@ -217,62 +171,46 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 		const sM = z - lay.topM;
 		// U = uTop + (qTop·sM − aTop·w)/k0 with w the double integral of A/aTop (depth only).
 		const w = kirchhoffInLayerC(0, 0, -1, lay.decayM, 1, sM);
-		const qk = qOverK[li];
-		const ak = aOverK[li];
-		const uc = uTop[li];
-		for (let s = 0; s < n; s++) column[s] = uc[s] + qk[s] * sM - ak[s] * w;
+		fillColumn(column, uTop[li], qOverK[li], aOverK[li], sM, w);
 
 		for (let m = 0; m < isotherms.length; m++) {
 			const target = isotherms[m];
-			const cross = crossings[m];
-			const list = pending[m];
-			const tu = kirchhoffTarget(target, b);
-			const tuPrev = kirchhoffTarget(target, prevB);
-			let count = pendingCount[m];
-			for (let i = 0; i < count; i++) {
-				const s = list[i];
-				const cur = column[s] - tu;
-				let crossed = false;
-				if (d === 0) {
-					if (cur === 0) {
-						cross[s] = 0;
-						crossed = true;
-					}
-				} else {
-					const prev = previous[s] - tuPrev;
-					if (cur === 0 || prev < 0 !== cur < 0) {
-						// Interpolate linearly in T, like isothermDepthM on a single profile.
-						const t0 = fromKirchhoffC(previous[s], prevB) - target;
-						const t1 = fromKirchhoffC(column[s], b) - target;
-						const z0 = depthM[d - 1];
-						cross[s] = t1 === 0 || t0 === t1 ? z : z0 + ((z - z0) * t0) / (t0 - t1);
-						crossed = true;
-					}
-				}
-				if (crossed) list[i--] = list[--count];
-			}
-			pendingCount[m] = count;
+			pendingCount[m] =
+				d === 0
+					? scanSurface(
+							column,
+							pending[m],
+							pendingCount[m],
+							crossings[m],
+							kirchhoffTarget(target, b)
+						)
+					: scanIsotherm(
+							column,
+							previous,
+							pending[m],
+							pendingCount[m],
+							crossings[m],
+							target,
+							b,
+							prevB,
+							depthM[d - 1],
+							z
+						);
 		}
 
 		if (d === 0) {
 			p10C[0] = p50C[0] = p90C[0] = central.surfaceTemperatureC;
 		} else {
-			order.update(column);
-			p10C[d] = bandValueC(order, P[0], b);
-			p50C[d] = bandValueC(order, P[1], b);
-			p90C[d] = bandValueC(order, P[2], b);
+			const [s10, s50, s90] = tracker.update(column);
+			p10C[d] = bandValueC(s10, b);
+			p50C[d] = bandValueC(s50, b);
+			p90C[d] = bandValueC(s90, b);
 		}
 		if (moments) {
-			let sum = 0;
-			let sum2 = 0;
-			for (let s = 0; s < n; s++) {
-				const t = d === 0 ? central.surfaceTemperatureC : fromKirchhoffC(column[s], b);
-				sum += t;
-				sum2 += t * t;
-			}
-			const mean = sum / n;
-			meanC.push(mean);
-			sdC.push(Math.sqrt(Math.max(0, (sum2 - n * mean * mean) / (n - 1))));
+			const [mean, sd] =
+				d === 0 ? constantMoments(central.surfaceTemperatureC, n) : momentsC(column, b);
+			meanC[d] = mean;
+			sdC[d] = sd;
 		}
 		[previous, column] = [column, previous];
 		prevB = b;
@@ -280,10 +218,10 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 
 	return {
 		depthM,
-		p10C,
-		p50C,
-		p90C,
-		...(moments ? { meanC, sdC } : {}),
+		p10C: Array.from(p10C),
+		p50C: Array.from(p50C),
+		p90C: Array.from(p90C),
+		...(moments ? { meanC: Array.from(meanC), sdC: Array.from(sdC) } : {}),
 		surfaceHeatFlowMWm2: triple(q0, 1e3),
 		basalHeatFlowMWm2: triple(qb, 1e3),
 		isotherms: isotherms.map((temperatureC, m) => {
@@ -305,10 +243,178 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 	};
 }
 
-/** Type-7 percentile in T of the sorted U column: both order statistics are mapped back to T
+interface DrawSettings {
+	basal: boolean;
+	qMean: number;
+	sigmaQ: number;
+	qMin: number;
+	qMax: number;
+	qDist: Distribution;
+	kDist: Distribution;
+	aDist: Distribution;
+}
+
+/**
+ * Draws every sample's boundary heat flow, conductivities and heat productions (in that order per
+ * sample, which fixes the results for a seed) and solves each for the state at every layer top.
+ * Per-layer columns over samples: conductivity, top heat production, top heat flow, top U.
+ */
+function drawSamples(
+	layers: PreparedLayer[],
+	surfaceTemperatureC: number,
+	uncertainties: LayerUncertainty[],
+	n: number,
+	random: Random,
+	o: DrawSettings
+) {
+	const L = layers.length;
+	const k0 = layers.map(() => new Float64Array(n));
+	const aTop = layers.map(() => new Float64Array(n));
+	const qTop = layers.map(() => new Float64Array(n));
+	const uTop = layers.map(() => new Float64Array(n));
+	const q0 = new Float64Array(n);
+	const qb = new Float64Array(n);
+	// Hoisted out of the sample loop: the names are only used in errors, and building them per draw
+	// was a measurable share of the run.
+	const kSigma = layers.map((_, j) => uncertainties[j]?.conductivitySigmaWmK ?? 0);
+	const aSigma = layers.map((_, j) => uncertainties[j]?.heatProductionSigmaUWm3 ?? 0);
+	const kField = layers.map((_, j) => `layers[${j}].conductivitySigmaWmK`);
+	const aField = layers.map((_, j) => `layers[${j}].heatProductionSigmaUWm3`);
+	for (let s = 0; s < n; s++) {
+		const qDraw =
+			drawTruncated(random, o.qDist, o.qMean, o.sigmaQ, o.qMin, o.qMax, 'heatFlowSigmaMWm2') * 1e-3;
+		let production = 0;
+		for (let j = 0; j < L; j++) {
+			const lay = layers[j];
+			k0[j][s] = drawTruncated(
+				random,
+				o.kDist,
+				lay.k0WmK,
+				kSigma[j],
+				Number.MIN_VALUE,
+				Infinity,
+				kField[j]
+			);
+			aTop[j][s] =
+				drawTruncated(random, o.aDist, lay.aTopWm3 * 1e6, aSigma[j], 0, Infinity, aField[j]) * 1e-6;
+			production += integratedHeatProductionWm2(aTop[j][s], lay.decayM, lay.bottomM - lay.topM);
+		}
+		let q = o.basal ? qDraw + production : qDraw;
+		let t = surfaceTemperatureC;
+		q0[s] = q;
+		for (let j = 0; j < L; j++) {
+			const lay = layers[j];
+			const thickness = lay.bottomM - lay.topM;
+			if (!(1 + lay.b * t > 0)) {
+				throw new ThermalInputError(
+					`layers[${j}].conductivityTempCoeffPerK`,
+					lay.b,
+					`makes 1 + b·T <= 0 in sample ${s}`
+				);
+			}
+			qTop[j][s] = q;
+			uTop[j][s] = toKirchhoffC(t, lay.b);
+			const u = kirchhoffInLayerC(uTop[j][s], q, aTop[j][s], lay.decayM, k0[j][s], thickness);
+			q = heatFlowInLayerWm2(q, aTop[j][s], lay.decayM, thickness);
+			t = fromKirchhoffC(u, lay.b);
+		}
+		qb[s] = o.basal ? qDraw : q;
+	}
+	return { k0, aTop, qTop, uTop, q0, qb };
+}
+
+/** column[s] = U of every sample at one depth: uTop + (qTop/k0)·sM − (aTop/k0)·w. */
+function fillColumn(
+	column: Float64Array,
+	uTopC: Float64Array,
+	qOverK: Float64Array,
+	aOverK: Float64Array,
+	sM: number,
+	w: number
+): void {
+	for (let s = 0; s < column.length; s++) column[s] = uTopC[s] + qOverK[s] * sM - aOverK[s] * w;
+}
+
+/** At the surface only samples exactly at the isotherm cross it (depth 0); returns the new count. */
+function scanSurface(
+	column: Float64Array,
+	list: Int32Array,
+	count: number,
+	cross: Float64Array,
+	targetU: number
+): number {
+	for (let i = 0; i < count; i++) {
+		const s = list[i];
+		if (column[s] - targetU === 0) {
+			cross[s] = 0;
+			list[i--] = list[--count];
+		}
+	}
+	return count;
+}
+
+/**
+ * Records the depth at which each pending sample crosses the isotherm between the previous depth
+ * (U in transform bPrev) and this one (transform b), and drops it from the list; returns the count.
+ */
+function scanIsotherm(
+	column: Float64Array,
+	previous: Float64Array,
+	list: Int32Array,
+	count: number,
+	cross: Float64Array,
+	targetC: number,
+	b: number,
+	bPrev: number,
+	zPrevM: number,
+	zM: number
+): number {
+	const tu = kirchhoffTarget(targetC, b);
+	const tuPrev = kirchhoffTarget(targetC, bPrev);
+	for (let i = 0; i < count; i++) {
+		const s = list[i];
+		const cur = column[s] - tu;
+		const prev = previous[s] - tuPrev;
+		if (cur === 0 || prev < 0 !== cur < 0) {
+			// Interpolate linearly in T, like isothermDepthM on a single profile.
+			const t0 = fromKirchhoffC(previous[s], bPrev) - targetC;
+			const t1 = fromKirchhoffC(column[s], b) - targetC;
+			cross[s] = t1 === 0 || t0 === t1 ? zM : zPrevM + ((zM - zPrevM) * t0) / (t0 - t1);
+			list[i--] = list[--count];
+		}
+	}
+	return count;
+}
+
+/** Mean and sample standard deviation (°C) of T over a U column (one exp per sample). */
+function momentsC(column: Float64Array, b: number): [number, number] {
+	const n = column.length;
+	let sum = 0;
+	let sum2 = 0;
+	for (let s = 0; s < n; s++) {
+		const t = fromKirchhoffC(column[s], b);
+		sum += t;
+		sum2 += t * t;
+	}
+	const mean = sum / n;
+	return [mean, Math.sqrt(Math.max(0, (sum2 - n * mean * mean) / (n - 1)))];
+}
+
+/** The same one-pass formula for n copies of one temperature, so depth 0 rounds like the rest. */
+function constantMoments(temperatureC: number, n: number): [number, number] {
+	let sum = 0;
+	let sum2 = 0;
+	for (let s = 0; s < n; s++) {
+		sum += temperatureC;
+		sum2 += temperatureC * temperatureC;
+	}
+	const mean = sum / n;
+	return [mean, Math.sqrt(Math.max(0, (sum2 - n * mean * mean) / (n - 1)))];
+}
+
+/** Type-7 percentile in T from the two order statistics of U around it: both order statistics are mapped back to T
  * before interpolating, so the result is type 7 in T (interpolating in U would not be). */
-function bandValueC(order: SampleOrder, p: number, b: number): number {
-	const [lo, hi, weight] = order.ranks(p);
+function bandValueC([lo, hi, weight]: [number, number, number], b: number): number {
 	const tLo = fromKirchhoffC(lo, b);
 	return weight === 0 ? tLo : tLo + weight * (fromKirchhoffC(hi, b) - tLo);
 }

@@ -1,4 +1,5 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
+import { NO_FILTERS, type SiteFilters } from '$lib/map/filters';
 import { visibleDatasets, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { dataset, organisation, site } from '../db/schema';
@@ -32,9 +33,17 @@ export async function visibleSitesInBox(
 	db: Db,
 	viewer: Viewer,
 	box: BoundingBox,
+	filters: SiteFilters = NO_FILTERS,
 	limit = 100_000
 ): Promise<SiteSummary[]> {
 	const envelope = sql`ST_MakeEnvelope(${box.west}, ${box.south}, ${box.east}, ${box.north}, 4326)`;
+	const conditions: SQL[] = [sql`${site.location} && ${envelope}`, visibleDatasets(viewer)];
+	if (filters.quality.length) conditions.push(inArray(site.qualityClass, filters.quality));
+	if (filters.method.length) conditions.push(inArray(site.method, filters.method));
+	if (filters.minHeatFlowMWm2 !== null)
+		conditions.push(gte(site.heatFlowMWm2, filters.minHeatFlowMWm2));
+	if (filters.maxHeatFlowMWm2 !== null)
+		conditions.push(lte(site.heatFlowMWm2, filters.maxHeatFlowMWm2));
 	return db
 		.select({
 			id: site.id,
@@ -52,7 +61,7 @@ export async function visibleSitesInBox(
 		.from(site)
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
 		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
-		.where(and(sql`${site.location} && ${envelope}`, visibleDatasets(viewer)))
+		.where(and(...conditions))
 		.orderBy(asc(site.code))
 		.limit(limit);
 }

@@ -1,14 +1,23 @@
 import { error } from '@sveltejs/kit';
 import { parseBBox } from '$lib/geo/bbox';
+import { parseSiteFilters } from '$lib/map/filters';
 import { getDb } from '$lib/server/db';
 import { visibleSitesInBox } from '$lib/server/repositories/sites';
 import type { RequestHandler } from './$types';
 
-/** The sites the caller may see in `bbox` (west,south,east,north, WGS 84) as a GeoJSON FeatureCollection. */
+/**
+ * The sites the caller may see in `bbox` (west,south,east,north, WGS 84) as a GeoJSON
+ * FeatureCollection, optionally filtered by quality, method and heat-flow range.
+ */
 export const GET: RequestHandler = async ({ url, locals }) => {
 	const bbox = parseBBox(url.searchParams.get('bbox'));
 	if (!bbox.ok) error(400, bbox.error);
-	const sites = await visibleSitesInBox(getDb(), locals.viewer, bbox.value);
+	const sites = await visibleSitesInBox(
+		getDb(),
+		locals.viewer,
+		bbox.value,
+		parseSiteFilters(url.searchParams)
+	);
 	const body = {
 		type: 'FeatureCollection',
 		features: sites.map(({ lon, lat, ...properties }) => ({
