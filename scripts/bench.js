@@ -34,5 +34,7 @@ for (const file of files) {
 	if (code !== 0) failed += 1;
 }
 await stopAll();
-console.log(`\n${files.length - failed} benchmark files ran, ${failed} failed`);
+console.log(
+	`\n${files.length} benchmark files ran; ${failed} missed a target or failed (see above)`
+);
 process.exit(failed ? 1 : 0);

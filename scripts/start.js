@@ -52,4 +52,6 @@ console.log(
 	`  SMTP         ${embedded.mail ? `${appEnv.SMTP_URL} (embedded mail catcher)` : 'external (SMTP_URL / SMTP_HOST)'}`
 );
 if (embedded.mail) console.log(`  Caught mail  ${appEnv.MAIL_VIEWER_URL}`);
-console.log('  Demo accounts are printed above (and listed in the README); press Ctrl-C to stop everything.');
+console.log(
+	'  Demo accounts are printed above (and listed in the README); press Ctrl-C to stop everything.'
+);

@@ -65,7 +65,16 @@ describe('table imports', () => {
 			await contributor.json(`/api/v1/datasets/${datasetId}/imports/preview`, payload)
 		).json();
 		expect(again.previousImport).not.toBeNull();
-		expect(again.issues[0].message).toContain('exists in this dataset already');
+		const messages: string[] = again.issues.map((i: { message: string }) => i.message);
+		expect(again.errorCount).toBe(10_000);
+		expect(again.issuesTruncated).toBe(true);
+		expect(messages[0]).toBe(
+			'Row 2, column "site_code": site "BIG-0" exists in this dataset already.'
+		);
+		// The same places are now taken by the sites just imported: each row is also flagged as near one.
+		expect(
+			messages.some((m) => /^Row 2: the site at .* is 0 m from existing site BIG-0/.test(m))
+		).toBe(true);
 	});
 
 	it('warns about a site within 100 m of an existing one, using PostGIS distance', async () => {
@@ -88,7 +97,7 @@ describe('table imports', () => {
 			.filter((i: { severity: string }) => i.severity === 'warning')
 			.map((i: { message: string }) => i.message);
 		const nearWarning = warnings.find((m: string) => m.includes('existing site KGS-001'));
-		expect(nearWarning).toMatch(/Row 2.*5[4-7] m from existing site KGS-001/);
+		expect(nearWarning).toMatch(/^Row 2: the site at .* is 5[4-7] m from existing site KGS-001/);
 		expect(warnings.some((m: string) => m.startsWith('Row 3') && m.includes('existing site'))).toBe(
 			false
 		);

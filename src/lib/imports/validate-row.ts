@@ -340,7 +340,17 @@ export function validateRow(ctx: RowContext, index: number): RowResult {
 	const site = errors.length === 0 ? (values as SiteDraft) : null;
 	if (site && ctx.options.nearExisting) {
 		const near = ctx.options.nearExisting(site);
-		if (near) add('warning', 'Coordinates', '', 'location.near-existing', `— ${near}`);
+		if (near) {
+			const { lat, lon } = site.location;
+			warnings.push({
+				row,
+				severity: 'warning',
+				column: 'Coordinates',
+				value: `${lat}, ${lon}`,
+				code: 'location.near-existing',
+				message: `${where} ${row}: the site at ${lat.toFixed(5)}, ${lon.toFixed(5)} is ${near}`
+			});
+		}
 	}
 	return { row, site, values, errors, warnings };
 }

@@ -41,4 +41,8 @@ export async function markExistingCodes(
 		preview.validCount -= 1;
 	}
 	preview.canImport = false;
+	// Keep the report in row order, errors before warnings, as the library does.
+	const rank = (i: { row: number | null; severity: string }) =>
+		(i.row ?? 0) * 2 + (i.severity === 'error' ? 0 : 1);
+	preview.issues.sort((a, b) => rank(a) - rank(b));
 }
