@@ -111,6 +111,16 @@ export async function mailFor(
 	return res.json();
 }
 
+/** Wait (up to 10 s) for a message to an address whose subject starts with a prefix; some are sent in the background. */
+export async function waitForMail(address: string, subjectStartsWith: string) {
+	for (let i = 0; i < 50; i++) {
+		const found = (await mailFor(address)).find((m) => m.subject.startsWith(subjectStartsWith));
+		if (found) return found;
+		await new Promise((r) => setTimeout(r, 200));
+	}
+	throw new Error(`no "${subjectStartsWith}" mail for ${address}`);
+}
+
 /** The first link to the app in a plain-text message. */
 export function linkIn(text: string): URL {
 	const match = text.match(/https?:\/\/\S+/);

@@ -48,10 +48,10 @@ export const mailTemplates = {
 		),
 	changeEmail: (name: string, newEmail: string, url: string) =>
 		compose(
-			'Confirm your new e-mail address',
-			`Hello ${name}, confirm that your Thermalith account should use ${newEmail} from now on.`,
-			{ label: 'Confirm the change', url },
-			'If you did not ask for this, ignore this message and your address stays as it is.'
+			'Approve the change of your e-mail address',
+			`Hello ${name}, someone signed in to your Thermalith account asked to move it to ${newEmail}. Approve it here; we will then send a confirmation link to ${newEmail}.`,
+			{ label: 'Approve the change', url },
+			'If you did not ask for this, ignore this message and your address stays as it is; consider changing your password.'
 		),
 	invitation: (organisation: string, inviter: string, role: string, url: string) =>
 		compose(

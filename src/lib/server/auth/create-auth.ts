@@ -72,9 +72,11 @@ export function createAuth(s: AuthSettings) {
 		user: {
 			changeEmail: {
 				enabled: true,
+				// Sent to the CURRENT address: its owner approves the move; better-auth then sends the
+				// new address a normal verification link and switches only after that is opened.
 				sendChangeEmailConfirmation: async ({ user, newEmail, token }) => {
 					await s.send(
-						newEmail,
+						user.email,
 						mailTemplates.changeEmail(user.name, newEmail, link('/verify-email', token))
 					);
 				}

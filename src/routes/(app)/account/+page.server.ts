@@ -1,4 +1,4 @@
-import { fail } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { auth } from '$lib/server/auth';
@@ -26,6 +26,7 @@ export const load: PageServerLoad = async (event) => {
 		.orderBy(organisation.name);
 	const currentId = event.locals.session?.id;
 	return {
+		passwordChanged: event.url.searchParams.get('password') === 'changed',
 		profile: { name: user.name, email: user.email, emailVerified: user.emailVerified },
 		activeOrganisationId: event.locals.session?.activeOrganizationId ?? null,
 		memberships,
@@ -57,6 +58,8 @@ export const actions: Actions = {
 		const parsed = parseForm(emailOnlySchema, await event.request.formData());
 		if (!parsed.ok) return fail(400, { ...parsed, form: 'email' });
 		try {
+			// The confirmation goes to the current address; once confirmed, the new address gets its
+			// own verification link, and only then does the account switch (see create-auth.ts).
 			await auth().api.changeEmail({
 				body: { newEmail: parsed.data.email, callbackURL: '/account' },
 				headers: event.request.headers
@@ -82,7 +85,8 @@ export const actions: Actions = {
 		} catch (err) {
 			return authFailure(err, { form: 'password' });
 		}
-		return { form: 'password', saved: true };
+		// The change replaces this browser's session too; load the page again with the new cookie.
+		redirect(303, '/account?password=changed');
 	},
 	revoke: async (event) => {
 		requireUser(event, 'action');

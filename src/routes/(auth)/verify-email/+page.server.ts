@@ -16,7 +16,14 @@ export const load: PageServerLoad = async ({ url, request, locals }) => {
 	}
 	try {
 		await auth().api.verifyEmail({ query: { token }, headers: request.headers });
-		return { state: 'verified' as const, email: '' };
+		// The same link type serves a change of address; its first step only approves the move.
+		return {
+			state:
+				tokenPurpose(token) === 'change-email-confirmation'
+					? ('approved' as const)
+					: ('verified' as const),
+			email: ''
+		};
 	} catch (err) {
 		if (err instanceof APIError)
 			return { state: 'invalid' as const, email: locals.user?.email ?? '' };
@@ -39,3 +46,15 @@ export const actions: Actions = {
 		return { resent: true };
 	}
 };
+
+/** The purpose better-auth wrote into the (already verified) token's payload, if any. */
+function tokenPurpose(token: string): string | null {
+	try {
+		const payload = JSON.parse(
+			Buffer.from(token.split('.')[1] ?? '', 'base64url').toString('utf8')
+		);
+		return typeof payload.requestType === 'string' ? payload.requestType : null;
+	} catch {
+		return null;
+	}
+}
