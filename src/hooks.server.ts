@@ -4,12 +4,17 @@ import { svelteKitHandler } from 'better-auth/svelte-kit';
 import { auth } from '$lib/server/auth';
 import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
+import { failStaleImports } from '$lib/server/imports/stale';
 import { closeMailer } from '$lib/server/mail';
 import { viewerFor } from '$lib/server/viewer';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {
 	config();
+	if (!building) {
+		const stale = await failStaleImports(getDb());
+		if (stale) console.warn(`${stale} interrupted import(s) marked as failed`);
+	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.
 	process.once('sveltekit:shutdown', () => {
 		void closeDb();
