@@ -136,6 +136,14 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 	// U(z) = uTop + (qTop/k0)·sM − (aTop/k0)·w(sM): keep the two ratios so the depth loop has no division.
 	const qOverK = layers.map((_, j) => qTop[j].map((q, s) => q / k0[j][s]));
 	const aOverK = layers.map((_, j) => aTop[j].map((a, s) => a / k0[j][s]));
+	// Every result is a per-sample quantity or an order statistic, so the order in which samples
+	// are stored is free. Storing them by their temperature at the base makes each depth's column
+	// nearly sorted, which keeps the percentile scan's comparisons predictable for the CPU
+	// (measured: a large share of the band's time was mispredicted branches on random order).
+	const order = orderByBaseTemperature(uTop, qOverK, aOverK, layers);
+	for (const arrays of [uTop, qOverK, aOverK]) {
+		for (let j = 0; j < L; j++) arrays[j] = permute(arrays[j], order);
+	}
 
 	const depthM = sampleDepthsM(
 		layers.map((l) => l.bottomM),
@@ -321,6 +329,29 @@ function drawSamples(
 		qb[s] = o.basal ? qDraw : q;
 	}
 	return { k0, aTop, qTop, uTop, q0, qb };
+}
+
+/** Sample indices sorted by each sample's Kirchhoff variable at the base of the last layer. */
+function orderByBaseTemperature(
+	uTop: Float64Array[],
+	qOverK: Float64Array[],
+	aOverK: Float64Array[],
+	layers: PreparedLayer[]
+): Uint32Array {
+	const j = layers.length - 1;
+	const lay = layers[j];
+	const sM = lay.bottomM - lay.topM;
+	const w = kirchhoffInLayerC(0, 0, -1, lay.decayM, 1, sM);
+	const key = new Float64Array(uTop[j].length);
+	fillColumn(key, uTop[j], qOverK[j], aOverK[j], sM, w);
+	const order = Uint32Array.from({ length: key.length }, (_, s) => s);
+	return order.sort((a, b) => key[a] - key[b]);
+}
+
+function permute(values: Float64Array, order: Uint32Array): Float64Array {
+	const out = new Float64Array(values.length);
+	for (let i = 0; i < order.length; i++) out[i] = values[order[i]];
+	return out;
 }
 
 /** column[s] = U of every sample at one depth: uTop + (qTop/k0)·sM − (aTop/k0)·w. */
