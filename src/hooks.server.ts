@@ -12,8 +12,10 @@ import { viewerFor } from '$lib/server/viewer';
 export const init: ServerInit = async () => {
 	config();
 	if (!building) {
-		const stale = await failStaleImports(getDb());
-		if (stale) console.warn(`${stale} interrupted import(s) marked as failed`);
+		// Housekeeping only: a database that is not up yet must not keep the app from starting.
+		await failStaleImports(getDb())
+			.then((stale) => stale && console.warn(`${stale} interrupted import(s) marked as failed`))
+			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.
 	process.once('sveltekit:shutdown', () => {

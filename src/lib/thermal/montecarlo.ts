@@ -348,7 +348,7 @@ function orderByBaseTemperature(
 	return order.sort((a, b) => key[a] - key[b]);
 }
 
-function permute(values: Float64Array, order: Uint32Array): Float64Array {
+function permute(values: Float64Array, order: Uint32Array): Float64Array<ArrayBuffer> {
 	const out = new Float64Array(values.length);
 	for (let i = 0; i < order.length; i++) out[i] = values[order[i]];
 	return out;
