@@ -102,13 +102,17 @@ describe('which sites a viewer may see', () => {
 		expect(await codes(ANONYMOUS)).toEqual(['IT-public', 'IT-released']);
 	});
 	it('shows members everything of their own organisation', async () => {
-		expect(await codes({ userId: 'u1', organisationIds: [orgId], isPlatformAdmin: false })).toEqual(
-			['IT-draft', 'IT-embargoed', 'IT-private', 'IT-public', 'IT-released']
-		);
+		expect(await codes({ ...ANONYMOUS, userId: 'u1', roles: { [orgId]: 'viewer' } })).toEqual([
+			'IT-draft',
+			'IT-embargoed',
+			'IT-private',
+			'IT-public',
+			'IT-released'
+		]);
 	});
 	it('does not let a member of another organisation see private or embargoed data', async () => {
-		expect(
-			await codes({ userId: 'u2', organisationIds: ['someone-else'], isPlatformAdmin: false })
-		).toEqual(['IT-public', 'IT-released']);
+		expect(await codes({ ...ANONYMOUS, userId: 'u2', roles: { 'someone-else': 'owner' } })).toEqual(
+			['IT-public', 'IT-released']
+		);
 	});
 });

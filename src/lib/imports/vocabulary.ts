@@ -1,16 +1,9 @@
 // The method and correction vocabularies as people spell them, mapped to the stored enums.
 // The spellings are the trade's ordinary terms (common practice, no source).
 
-import type { QualityMethod } from '../sites/quality';
+import { HEAT_FLOW_METHODS, type HeatFlowMethod } from '../sites/methods';
 
-export type HeatFlowMethod = QualityMethod;
-export const HEAT_FLOW_METHODS: readonly HeatFlowMethod[] = [
-	'borehole_interval',
-	'bullard',
-	'bottom_hole_temperature',
-	'marine_probe',
-	'other'
-];
+export { HEAT_FLOW_METHODS, type HeatFlowMethod };
 
 export const CORRECTIONS = ['topographic', 'palaeoclimatic', 'sedimentation', 'other'] as const;
 export type Correction = (typeof CORRECTIONS)[number];

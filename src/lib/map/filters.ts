@@ -1,14 +1,9 @@
+import { HEAT_FLOW_METHODS, type HeatFlowMethod } from '$lib/sites/methods';
 import { QUALITY_CLASSES, type QualityClass } from '$lib/sites/quality';
 
 /** Map filters, kept in the page URL and passed on to /api/v1/sites.geojson unchanged. */
-export const METHODS = [
-	'borehole_interval',
-	'bullard',
-	'bottom_hole_temperature',
-	'marine_probe',
-	'other'
-] as const;
-export type MethodFilter = (typeof METHODS)[number];
+export const METHODS = HEAT_FLOW_METHODS;
+export type MethodFilter = HeatFlowMethod;
 
 export interface SiteFilters {
 	quality: QualityClass[];

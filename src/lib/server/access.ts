@@ -7,12 +7,24 @@ import { dataset } from './db/schema';
  */
 export interface Viewer {
 	userId: string | null;
-	/** Organisations the viewer is a member of (any role), whose own datasets they may see. */
-	organisationIds: string[];
+	/** Confirmed e-mail address: required to upload (see canUpload in dataset-access.ts). */
+	emailVerified: boolean;
+	/** The viewer's role in each organisation they belong to, by organisation id. */
+	roles: Record<string, string>;
 	isPlatformAdmin: boolean;
 }
 
-export const ANONYMOUS: Viewer = { userId: null, organisationIds: [], isPlatformAdmin: false };
+export const ANONYMOUS: Viewer = {
+	userId: null,
+	emailVerified: false,
+	roles: {},
+	isPlatformAdmin: false
+};
+
+/** Organisations the viewer is a member of (any role), whose own datasets they may see. */
+export function memberOrganisations(viewer: Viewer): string[] {
+	return Object.keys(viewer.roles);
+}
 
 /**
  * THE rule for which datasets (and so which sites, grids, statistics, exports and files) a viewer
@@ -30,6 +42,7 @@ export function visibleDatasets(viewer: Viewer): SQL {
 			and(eq(dataset.visibility, 'embargoed'), lte(dataset.embargoUntil, sql`current_date`))
 		)
 	)!;
-	if (viewer.organisationIds.length === 0) return released;
-	return or(released, inArray(dataset.organisationId, viewer.organisationIds))!;
+	const own = memberOrganisations(viewer);
+	if (own.length === 0) return released;
+	return or(released, inArray(dataset.organisationId, own))!;
 }

@@ -15,7 +15,7 @@ import type { Viewer } from './access';
 import { config } from './config';
 import type { Db } from './db/client';
 import { attachment, site } from './db/schema';
-import { datasetForViewer } from './repositories/dataset-access';
+import { datasetForViewer, requireUpload } from './repositories/dataset-access';
 import { bucket, s3 } from './storage';
 
 const UPLOAD_URL_SECONDS = 15 * 60;
@@ -30,7 +30,7 @@ export async function startAttachmentUpload(
 	input: { datasetId: string; siteId?: string | null; fileName: string; sizeBytes: number }
 ) {
 	const found = await datasetForViewer(db, viewer, input.datasetId);
-	if (!found.can.upload) error(403, 'Your role does not allow adding files to this dataset.');
+	requireUpload(found);
 	const max = config().ATTACHMENT_MAX_BYTES;
 	if (!(input.sizeBytes > 0)) error(400, 'The file is empty.');
 	if (input.sizeBytes > max) {
@@ -75,7 +75,7 @@ async function pendingAttachment(db: Db, viewer: Viewer, id: string) {
 	const [row] = await db.select().from(attachment).where(eq(attachment.id, id));
 	if (!row) error(404, 'No such file.');
 	const found = await datasetForViewer(db, viewer, row.datasetId);
-	if (!found.can.upload) error(403, 'Your role does not allow adding files to this dataset.');
+	requireUpload(found);
 	return row;
 }
 

@@ -1,3 +1,5 @@
+import type { HeatFlowMethod } from './methods';
+
 /**
  * Thermalith's own quality scheme for a heat-flow determination. It ranks how well a value is
  * constrained from three things a reviewer looks at first: the relative 1-σ uncertainty, the
@@ -18,8 +20,7 @@ export const QUALITY_LABELS: Record<QualityClass, string> = {
 	unconstrained: 'Unconstrained'
 };
 
-export type QualityMethod =
-	'borehole_interval' | 'bullard' | 'bottom_hole_temperature' | 'marine_probe' | 'other';
+export type QualityMethod = HeatFlowMethod;
 
 export interface QualityInput {
 	heatFlowMWm2: number | null;

@@ -2,7 +2,7 @@ import { error } from '@sveltejs/kit';
 import { and, eq } from 'drizzle-orm';
 import { visibleDatasets, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { dataset, member, organisation } from '../db/schema';
+import { dataset, organisation } from '../db/schema';
 import { roleCan } from '../permissions';
 
 /**
@@ -18,22 +18,26 @@ export async function datasetForViewer(db: Db, viewer: Viewer, id: string) {
 		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
 		.where(and(eq(dataset.id, id), visibleDatasets(viewer)));
 	if (!row) error(404, 'No such dataset.');
-	let role: string | null = null;
-	if (viewer.userId) {
-		const [m] = await db
-			.select({ role: member.role })
-			.from(member)
-			.where(
-				and(eq(member.organizationId, row.dataset.organisationId), eq(member.userId, viewer.userId))
-			);
-		role = m?.role ?? null;
-	}
+	const role = viewer.roles[row.dataset.organisationId] ?? null;
 	const editable = ['draft', 'returned'].includes(row.dataset.status);
+	const roleMayUpload =
+		roleCan(role, 'upload', 'create') && (editable || roleCan(role, 'dataset', 'publish'));
 	const can = {
 		editMetadata:
 			roleCan(role, 'dataset', 'publish') || (editable && roleCan(role, 'dataset', 'edit-draft')),
-		upload: roleCan(role, 'upload', 'create') && (editable || roleCan(role, 'dataset', 'publish')),
+		// Uploading (sites, logs, files) also needs a confirmed e-mail address.
+		upload: roleMayUpload && viewer.emailVerified,
 		readPrivate: roleCan(role, 'dataset', 'read-private')
 	};
-	return { ...row, role, can };
+	const uploadRefusal = can.upload
+		? null
+		: roleMayUpload
+			? 'Confirm your e-mail address before you upload.'
+			: 'Your role does not allow adding data to this dataset now.';
+	return { ...row, role, can, uploadRefusal };
+}
+
+/** THE upload check for sites, logs and files: 403 with the reason unless the viewer may upload. */
+export function requireUpload(found: { can: { upload: boolean }; uploadRefusal: string | null }) {
+	if (!found.can.upload) error(403, found.uploadRefusal ?? 'You may not upload here.');
 }

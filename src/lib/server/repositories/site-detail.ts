@@ -30,7 +30,8 @@ export async function siteForViewer(db: Db, viewer: Viewer, id: string) {
 		...row,
 		dataset: owner.dataset,
 		organisationName: owner.organisationName,
-		can: owner.can
+		can: owner.can,
+		uploadRefusal: owner.uploadRefusal
 	};
 }
 

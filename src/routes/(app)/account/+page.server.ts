@@ -112,7 +112,7 @@ export const actions: Actions = {
 	activate: async (event) => {
 		const user = requireUser(event, 'action');
 		const organisationId = String((await event.request.formData()).get('organisationId') ?? '');
-		if (!event.locals.viewer.organisationIds.includes(organisationId)) {
+		if (!(organisationId in event.locals.viewer.roles)) {
 			return fail(403, {
 				form: 'organisations',
 				message: 'You are not a member of that organisation.'

@@ -11,17 +11,13 @@ import {
 	uniqueIndex,
 	uuid
 } from 'drizzle-orm/pg-core';
+// Relative, not $lib: drizzle-kit and the seed load the schema outside SvelteKit.
+import { HEAT_FLOW_METHODS } from '../../../sites/methods';
 import { pointWgs84 } from '../point';
 import { dataset } from './datasets';
 
 /** How the heat flow was determined (the trade's own categories). */
-export const heatFlowMethod = pgEnum('heat_flow_method', [
-	'borehole_interval',
-	'bullard',
-	'bottom_hole_temperature',
-	'marine_probe',
-	'other'
-]);
+export const heatFlowMethod = pgEnum('heat_flow_method', HEAT_FLOW_METHODS);
 
 /**
  * One heat-flow determination at a place. Values are stored in SI-derived display units named in

@@ -1,4 +1,4 @@
-import { error, fail } from '@sveltejs/kit';
+import { fail } from '@sveltejs/kit';
 import { version } from '$app/environment';
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
@@ -19,6 +19,7 @@ import {
 	temperatureLog
 } from '$lib/server/db/schema';
 import { requireUser } from '$lib/server/guards';
+import { requireUpload } from '$lib/server/repositories/dataset-access';
 import { siteForViewer, siteMeasurements } from '$lib/server/repositories/site-detail';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -59,9 +60,8 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 /** The site, if the user may change it (uploader of its dataset, confirmed address). */
 async function editableSite(event: RequestEvent) {
 	const user = requireUser(event, 'action');
-	if (!user.emailVerified) error(403, 'Confirm your e-mail address before you upload.');
 	const found = await siteForViewer(getDb(), event.locals.viewer, event.params.id);
-	if (!found.can.upload) error(403, 'Your role does not allow changing this site now.');
+	requireUpload(found);
 	return { user, found };
 }
 
