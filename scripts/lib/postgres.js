@@ -3,10 +3,11 @@
  * A private PostgreSQL 15 + PostGIS cluster under storage/, on loopback and a project port.
  * Debian's binaries are used directly; as root they run as the `postgres` user (initdb refuses root).
  */
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { capture, run } from './proc.js';
-import { fatal, ok, step } from './log.js';
+import { fatal, ok, step, warn } from './log.js';
 
 const PG_BIN = '/usr/lib/postgresql/15/bin';
 const POSTGIS_CONTROL = '/usr/share/postgresql/15/extension/postgis.control';
@@ -42,28 +43,45 @@ function pgCommand(bin, args) {
 		: { cmd: full, args };
 }
 
-/** Every folder above the data folder must be traversable by the postgres user. @param {string} dir */
-function checkTraversable(dir) {
-	if (!isRoot()) return;
+/**
+ * The first folder above `dir` that the postgres user cannot enter (no 'x' for others), or null.
+ * @param {string} dir
+ */
+function blockingParent(dir) {
 	let current = path.dirname(dir);
 	while (current !== path.dirname(current)) {
-		const mode = fs.statSync(current).mode;
-		if ((mode & 0o001) === 0) {
-			fatal(
-				`PostgreSQL runs as the 'postgres' user and cannot enter ${current} (mode ${(mode & 0o777).toString(8)}).\n` +
-					`Move the project somewhere world-traversable, or run: chmod o+x ${current}`
-			);
-		}
+		if (fs.existsSync(current) && (fs.statSync(current).mode & 0o001) === 0) return current;
 		current = path.dirname(current);
 	}
+	return null;
+}
+
+/**
+ * Where the cluster's files go. Normally `dataDir` (under storage/). As root, PostgreSQL runs as
+ * the 'postgres' user, which cannot reach a project inside a private folder (a 0700 home, or the
+ * folder `mktemp -d` makes for a clean-clone CI run); then the cluster lives in a folder of its own
+ * under /var/tmp, named after the project path, and this says so. Folder modes are never changed.
+ * @param {string} dataDir
+ */
+export function clusterDir(dataDir) {
+	if (!isRoot()) return dataDir;
+	const blocked = blockingParent(dataDir);
+	if (!blocked) return dataDir;
+	const id = crypto.createHash('sha256').update(dataDir).digest('hex').slice(0, 16);
+	const fallback = path.join('/var/tmp/thermalith-postgres', id);
+	warn(
+		`the 'postgres' user cannot enter ${blocked}; the cluster for ${path.relative(process.cwd(), dataDir) || dataDir} lives in ${fallback} instead`
+	);
+	fs.mkdirSync(path.dirname(fallback), { recursive: true, mode: 0o755 });
+	return fallback;
 }
 
 /**
  * Create (once) and start the cluster; returns a function that stops it.
  * @param {{ dataDir: string, port: number, host: string, fast?: boolean }} options
  */
-export async function startCluster({ dataDir, port, host, fast = false }) {
-	checkTraversable(dataDir);
+export async function startCluster({ dataDir: wanted, port, host, fast = false }) {
+	const dataDir = clusterDir(wanted);
 	if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) {
 		step(`creating PostgreSQL cluster in ${path.relative(process.cwd(), dataDir)}`);
 		fs.mkdirSync(dataDir, { recursive: true, mode: 0o700 });
