@@ -11,13 +11,25 @@ import { fileURLToPath } from 'node:url';
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
-/** Ports per profile: one block for development, another for tests, so both can run at once. */
+/** Default ports per profile: one block for development, another for tests, so both can run at once. */
 const PORTS = {
 	app: { dev: 5173, start: 3000, test: 3311, bench: 3321 },
 	postgres: { dev: 54330, start: 54330, test: 54340, bench: 54350 },
 	s3: { dev: 54331, start: 54331, test: 54341, bench: 54351 },
 	smtp: { dev: 54332, start: 54332, test: 54342, bench: 54352 },
 	mailWeb: { dev: 54333, start: 54333, test: 54343, bench: 54353 }
+};
+
+/**
+ * The variable that moves each embedded service's port (and `PORT` for the app). Setting
+ * THERMALITH_PORT_OFFSET shifts every default at once, so a second checkout can run beside the first.
+ */
+export const PORT_VARIABLES = {
+	app: 'PORT',
+	postgres: 'THERMALITH_POSTGRES_PORT',
+	s3: 'THERMALITH_S3_PORT',
+	smtp: 'THERMALITH_SMTP_PORT',
+	mailWeb: 'THERMALITH_MAIL_WEB_PORT'
 };
 
 /** @typedef {'dev' | 'start' | 'test' | 'bench'} Profile */
@@ -33,10 +45,25 @@ export function resolveConfig(profile, env = process.env) {
 		profile === 'dev' || profile === 'start' ? 'local' : profile
 	);
 	const host = '127.0.0.1';
+	const offset = Number(env.THERMALITH_PORT_OFFSET ?? 0);
+	if (!Number.isInteger(offset) || offset < 0 || offset > 10000) {
+		throw new Error(
+			`THERMALITH_PORT_OFFSET=${env.THERMALITH_PORT_OFFSET} must be a whole number from 0 to 10000`
+		);
+	}
 	/** @param {keyof typeof PORTS} name */
-	const port = (name) => PORTS[name][profile];
+	const port = (name) => {
+		const variable = PORT_VARIABLES[name];
+		const value = env[variable];
+		if (value === undefined || value === '') return PORTS[name][profile] + offset;
+		const n = Number(value);
+		if (!Number.isInteger(n) || n < 1 || n > 65535) {
+			throw new Error(`${variable}=${value} must be a port number between 1 and 65535`);
+		}
+		return n;
+	};
 
-	const appPort = Number(env.PORT ?? port('app'));
+	const appPort = port('app');
 	const embedded = {
 		postgres: !env.DATABASE_URL,
 		s3: !env.S3_ENDPOINT,
