@@ -3,68 +3,61 @@
  * `npm test`: sets up an isolated test cluster, database, S3 fake and mail catcher under
  * storage/test (never the development data), then runs the static checks, Vitest (unit,
  * component, integration) and the end-to-end tests in Chromium against a fresh build, stops what it
- * started, and ends with one plain line: `N passed, N failed, N skipped`.
- * Extra arguments are passed to Vitest (e.g. `npm test -- src/lib/thermal`).
+ * started (on every exit path), and ends with one plain line: `N passed, N failed, N skipped`.
+ * Extra arguments are passed to Vitest (e.g. `npm test -- src/lib/thermal`), except:
+ *   --cpu-burn       keep every core busy while Vitest runs (the suite must pass on a loaded machine)
+ *   --services-only  start the test services and the test build, print their settings, wait for Ctrl-C
  */
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { ensureNodeModules } from './lib/deps.js';
 import { ROOT, resolveConfig } from './lib/config.js';
 import { ok, step, warn } from './lib/log.js';
-import { run, stopAll, stopOnSignals } from './lib/proc.js';
+import { orchestrate } from './lib/orchestrator.js';
+import { claimRun } from './lib/runstate.js';
 
-const vitestArgs = process.argv.slice(2);
-const totals = { passed: 0, failed: 0, skipped: 0 };
+const OWN_FLAGS = ['--cpu-burn', '--services-only'];
+const cpuBurn = process.argv.includes('--cpu-burn');
+const servicesOnly = process.argv.includes('--services-only');
+const vitestArgs = process.argv.slice(2).filter((a) => !OWN_FLAGS.includes(a));
 const bin = (/** @type {string} */ p) => path.join(ROOT, 'node_modules', p);
 
-await ensureNodeModules();
-stopOnSignals();
-const { ensureChromium, CHROMIUM_PATH } = await import('./lib/chromium.js');
-await ensureChromium();
+await orchestrate(async () => {
+	await ensureNodeModules();
+	const { run, startService, stopAll } = await import('./lib/proc.js');
+	const { ensureChromium, CHROMIUM_PATH } = await import('./lib/chromium.js');
+	await ensureChromium();
 
-const config = resolveConfig('test');
-// One test run at a time: they share the test ports and database.
-const lock = path.join(config.storageDir, 'test-run.lock');
-fs.mkdirSync(config.storageDir, { recursive: true });
-try {
-	fs.writeFileSync(lock, String(process.pid), { flag: 'wx' });
-} catch {
-	const holder = Number(fs.readFileSync(lock, 'utf8'));
-	let alive = false;
-	try {
-		process.kill(holder, 0);
-		alive = true;
-	} catch {
-		alive = false;
-	}
-	if (alive) {
-		console.error(`another npm test (pid ${holder}) is running; wait for it to finish`);
-		process.exit(1);
-	}
-	fs.writeFileSync(lock, String(process.pid));
-}
-process.on('exit', () => fs.rmSync(lock, { force: true }));
-const { validateEnvironment } = await import('./lib/validate-env.js');
-validateEnvironment(config.appEnv);
-const env = { ...process.env, ...config.appEnv, CHROMIUM_PATH, TEST_APP_URL: config.appEnv.ORIGIN };
+	const config = resolveConfig('test');
+	const { validateEnvironment } = await import('./lib/validate-env.js');
+	validateEnvironment(config.appEnv);
+	// One test run per storage folder: they share its ports and database.
+	await claimRun(config.storageDir, 'npm test');
+	const env = {
+		...process.env,
+		...config.appEnv,
+		CHROMIUM_PATH,
+		TEST_APP_URL: config.appEnv.ORIGIN
+	};
+	const totals = { passed: 0, failed: 0, skipped: 0 };
 
-/** Run a static check; it counts as one test. @param {string} name @param {string} script @param {string[]} args */
-async function check(name, script, args) {
-	step(name);
-	const code = await run(process.execPath, [bin(script), ...args], { cwd: ROOT, env });
-	if (code === 0) {
-		totals.passed += 1;
-		ok(`${name} passed`);
-	} else {
-		totals.failed += 1;
-		warn(`${name} failed (exit ${code})`);
+	/** Run a static check; it counts as one test. @param {string} name @param {string} script @param {string[]} args */
+	async function check(name, script, args) {
+		step(name);
+		const code = await run(process.execPath, [bin(script), ...args], { cwd: ROOT, env });
+		if (code === 0) {
+			totals.passed += 1;
+			ok(`${name} passed`);
+		} else {
+			totals.failed += 1;
+			warn(`${name} failed (exit ${code})`);
+		}
 	}
-}
 
-let exitCode = 0;
-try {
+	const { checkPortsFree, startEmbeddedServices } = await import('./lib/services.js');
+	await checkPortsFree(config, ['app', 's3', 'smtp', 'mailWeb']);
 	await run(process.execPath, [bin('@sveltejs/kit/svelte-kit.js'), 'sync'], { cwd: ROOT, env });
-	const { startEmbeddedServices } = await import('./lib/services.js');
 	await startEmbeddedServices(config, { freshDatabase: true, freshObjects: true });
 	const { applyMigrations } = await import('./migrate.js');
 	step('applying migrations to the test database');
@@ -72,7 +65,7 @@ try {
 	const { seedDemoData } = await import('./lib/seed-runner.js');
 	await seedDemoData({ ...config.appEnv, THERMALITH_SEED: 'if-empty' });
 
-	if (vitestArgs.length === 0) {
+	if (vitestArgs.length === 0 && !servicesOnly) {
 		await check('svelte-check', 'svelte-check/bin/svelte-check', [
 			'--tsconfig',
 			'./tsconfig.json',
@@ -83,8 +76,25 @@ try {
 	}
 
 	const { buildApp, startBuiltApp } = await import('./lib/app.js');
-	await buildApp('build-test', config.appEnv, { force: true });
+	await buildApp('build-test', config.appEnv, { force: !servicesOnly });
 	await startBuiltApp('build-test', config.appEnv);
+
+	if (servicesOnly) {
+		ok('test services are up; run Vitest against them with these settings:');
+		for (const name of ['DATABASE_URL', 'S3_ENDPOINT', 'SMTP_URL', 'MAIL_VIEWER_URL']) {
+			console.log(`  ${name}=${config.appEnv[name]}`);
+		}
+		console.log(`  TEST_APP_URL=${config.appEnv.ORIGIN}`);
+		return 'serve';
+	}
+
+	if (cpuBurn) {
+		const cores = os.availableParallelism();
+		step(`keeping ${cores} cores busy while the tests run (--cpu-burn)`);
+		for (let i = 0; i < cores; i++) {
+			startService(`cpu-burner-${i + 1}`, [path.join(ROOT, 'scripts/lib/cpu-burner.js')], {});
+		}
+	}
 
 	const report = path.join(config.storageDir, 'vitest-report.json');
 	fs.rmSync(report, { force: true });
@@ -116,12 +126,9 @@ try {
 		totals.failed += 1;
 	}
 	if (code !== 0 && totals.failed === 0) totals.failed += 1;
-} catch (err) {
-	console.error(err);
-	totals.failed += 1;
-} finally {
+
+	// Stop the services before the summary, so the summary stays the last line.
 	await stopAll();
-}
-if (totals.failed > 0) exitCode = 1;
-console.log(`${totals.passed} passed, ${totals.failed} failed, ${totals.skipped} skipped`);
-process.exit(exitCode);
+	console.log(`${totals.passed} passed, ${totals.failed} failed, ${totals.skipped} skipped`);
+	return totals.failed > 0 ? 1 : 0;
+});

@@ -6,6 +6,12 @@ import { ROOT } from './config.js';
 import { fatal, ok, step } from './log.js';
 import { run, startService, waitForPort } from './proc.js';
 
+/**
+ * Where `npm start` builds the app; THERMALITH_BUILD_DIR reuses another up-to-date build (the
+ * orchestration tests point it at the test build instead of building a second time).
+ */
+export const START_BUILD_DIR = process.env.THERMALITH_BUILD_DIR ?? 'build';
+
 const SOURCES = [
 	'src',
 	'static',

@@ -39,11 +39,10 @@ export const PORT_VARIABLES = {
  * @param {NodeJS.ProcessEnv} [env]
  */
 export function resolveConfig(profile, env = process.env) {
-	const storageDir = path.join(
-		ROOT,
-		'storage',
-		profile === 'dev' || profile === 'start' ? 'local' : profile
-	);
+	// THERMALITH_STORAGE_DIR puts a run's data elsewhere (the orchestration tests use throw-away ones).
+	const storageDir = env.THERMALITH_STORAGE_DIR
+		? path.resolve(env.THERMALITH_STORAGE_DIR)
+		: path.join(ROOT, 'storage', profile === 'dev' || profile === 'start' ? 'local' : profile);
 	const host = '127.0.0.1';
 	const offset = Number(env.THERMALITH_PORT_OFFSET ?? 0);
 	if (!Number.isInteger(offset) || offset < 0 || offset > 10000) {

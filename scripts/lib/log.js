@@ -20,8 +20,21 @@ export function warn(message) {
 	console.warn(`${paint('33', '!')} ${message}`);
 }
 
-/** Print a message and stop with a non-zero exit code. @param {string} message @returns {never} */
-export function fatal(message) {
+/** @param {string} message */
+export function failure(message) {
 	console.error(`${paint('31', '✗')} ${message}`);
-	process.exit(1);
+}
+
+/** A problem the user can act on: printed as its message alone, without a stack. */
+export class FatalError extends Error {
+	name = 'FatalError';
+}
+
+/**
+ * Stop the run with a message. It throws instead of exiting so that the orchestrator's one exit
+ * path (scripts/lib/orchestrator.js) stops every service this run started first.
+ * @param {string} message @returns {never}
+ */
+export function fatal(message) {
+	throw new FatalError(message);
 }

@@ -8,6 +8,8 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { capture, run } from './proc.js';
 import { fatal, ok, step, warn } from './log.js';
+import { portProblem } from './ports.js';
+import { forgetPostgres, recordPostgres } from './runstate.js';
 
 const PG_BIN = '/usr/lib/postgresql/15/bin';
 const POSTGIS_CONTROL = '/usr/share/postgresql/15/extension/postgis.control';
@@ -113,11 +115,21 @@ export async function startCluster({ dataDir: wanted, port, host, fast = false }
 		fs.appendFileSync(mainConf, "\ninclude_if_exists = 'thermalith.conf'\n");
 	}
 
-	const status = pgCommand('pg_ctl', ['-D', dataDir, 'status']);
-	const running = capture(status.cmd, status.args, { cwd: '/' }).code === 0;
-	if (running) {
-		ok(`PostgreSQL already running on ${host}:${port}`);
+	const runningPort = clusterRunning(dataDir) ? clusterPort(dataDir) : null;
+	if (runningPort !== null && runningPort !== port) {
+		warn(`PostgreSQL of ${dataDir} is running on port ${runningPort}, not ${port}; restarting it`);
+		stopCluster(dataDir);
+	}
+	if (runningPort === port) {
+		ok(`PostgreSQL already running on ${host}:${port}; this run takes it over`);
 	} else {
+		const problem = await portProblem({
+			name: 'PostgreSQL',
+			host,
+			port,
+			variable: 'THERMALITH_POSTGRES_PORT'
+		});
+		if (problem) fatal(problem);
 		const start = pgCommand('pg_ctl', [
 			'-D',
 			dataDir,
@@ -137,11 +149,35 @@ export async function startCluster({ dataDir: wanted, port, host, fast = false }
 		}
 		ok(`PostgreSQL started on ${host}:${port}`);
 	}
+	recordPostgres(dataDir, port);
 	return async () => {
-		const stop = pgCommand('pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
-		capture(stop.cmd, stop.args, { cwd: '/' });
+		stopCluster(dataDir);
+		forgetPostgres();
 		ok('PostgreSQL stopped');
 	};
+}
+
+/** Is a postmaster running for this data folder? @param {string} dataDir */
+export function clusterRunning(dataDir) {
+	if (!fs.existsSync(path.join(dataDir, 'postmaster.pid'))) return false;
+	const status = pgCommand('pg_ctl', ['-D', dataDir, 'status']);
+	return capture(status.cmd, status.args, { cwd: '/' }).code === 0;
+}
+
+/** The port a running cluster listens on, from its postmaster.pid (4th line). @param {string} dataDir */
+function clusterPort(dataDir) {
+	try {
+		const lines = fs.readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n');
+		return Number(lines[3]);
+	} catch {
+		return null;
+	}
+}
+
+/** Fast shutdown (open sessions are disconnected), waiting until it is down. @param {string} dataDir */
+export function stopCluster(dataDir) {
+	const stop = pgCommand('pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', '-t', '60', 'stop']);
+	capture(stop.cmd, stop.args, { cwd: '/' });
 }
 
 /**

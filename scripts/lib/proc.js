@@ -2,6 +2,7 @@
 /** Child-process helpers: run a command to completion, or keep a service running and stop it later. */
 import { spawn, spawnSync } from 'node:child_process';
 import net from 'node:net';
+import { forgetService, recordService } from './runstate.js';
 
 /**
  * Run a command, inheriting stdio, and resolve with its exit code.
@@ -61,8 +62,16 @@ export function canConnect(host, port) {
 /** Services started by this process, stopped in reverse order by stopAll(). @type {Service[]} */
 const services = [];
 
+/** Called when a service stops on its own while the run still needs it. @type {(name: string, code: number | null) => void} */
+let onUnexpectedExit = () => {};
+/** @param {(name: string, code: number | null) => void} fn */
+export function whenServiceDies(fn) {
+	onUnexpectedExit = fn;
+}
+
 /**
- * Start a long-running node program as a service with a prefixed log.
+ * Start a long-running node program as a service with a prefixed log, recorded under the run's
+ * storage folder so that a crashed run's services can be found and stopped.
  * Started as `node <file>` (not through npx) so the pid we keep is the server's own.
  * @param {string} name @param {string[]} args @param {NodeJS.ProcessEnv} env
  */
@@ -72,14 +81,19 @@ export function startService(name, args, env) {
 	child.stdout?.on('data', (d) => process.stdout.write(prefixLines(prefix, d)));
 	child.stderr?.on('data', (d) => process.stderr.write(prefixLines(prefix, d)));
 	services.push({ name, child });
+	if (child.pid) recordService(name, child.pid, args[0]);
+	child.once('exit', (code) => {
+		forgetService(name);
+		if (!stopping) onUnexpectedExit(name, code);
+	});
 	return child;
 }
 
-/** Register a stop function (e.g. for PostgreSQL, which is not our child). @type {(() => Promise<void>)[]} */
+/** A stop function for something that is not our child (PostgreSQL), with its name. @type {{ name: string, stop: () => Promise<void> }[]} */
 const stoppers = [];
-/** @param {() => Promise<void>} fn */
-export function onStop(fn) {
-	stoppers.push(fn);
+/** @param {string} name @param {() => Promise<void>} fn */
+export function onStop(name, fn) {
+	stoppers.push({ name, stop: fn });
 }
 
 /** @param {string} prefix @param {Buffer} data */
@@ -92,12 +106,19 @@ function prefixLines(prefix, data) {
 }
 
 let stopping = false;
-/** Stop every service started here (SIGTERM, then SIGKILL after a grace period) and run stoppers. */
+/**
+ * Stop everything this run started, newest first (the app before the services it uses, PostgreSQL
+ * last): SIGTERM, then SIGKILL after a grace period. Says what it stops.
+ */
 export async function stopAll() {
 	if (stopping) return;
 	stopping = true;
-	for (const { child } of [...services].reverse()) {
-		if (child.exitCode !== null || child.signalCode !== null) continue;
+	const running = services.filter(
+		({ child }) => child.exitCode === null && child.signalCode === null
+	);
+	const names = [...running.map((s) => s.name).reverse(), ...stoppers.map((s) => s.name).reverse()];
+	if (names.length) console.log(`stopping what this run started: ${names.join(', ')}`);
+	for (const { name, child } of [...running].reverse()) {
 		await new Promise((resolve) => {
 			const timer = setTimeout(() => child.kill('SIGKILL'), 5000);
 			child.once('exit', () => {
@@ -106,19 +127,21 @@ export async function stopAll() {
 			});
 			child.kill('SIGTERM');
 		});
+		console.log(`  ${name} stopped`);
 	}
-	for (const stop of [...stoppers].reverse()) {
+	for (const { stop } of [...stoppers].reverse()) {
 		try {
 			await stop();
 		} catch (err) {
 			console.error(err);
 		}
 	}
+	if (names.length) console.log('everything this run started is stopped');
 }
 
-/** Stop everything on Ctrl-C / SIGTERM, then exit. */
+/** Kept for scripts not yet on orchestrate(): stop everything on Ctrl-C / SIGTERM, then exit. */
 export function stopOnSignals() {
-	for (const signal of /** @type {const} */ (['SIGINT', 'SIGTERM'])) {
+	for (const signal of /** @type {const} */ (['SIGINT', 'SIGTERM', 'SIGHUP'])) {
 		process.on(signal, async () => {
 			console.log(`\nreceived ${signal}, stopping services…`);
 			await stopAll();

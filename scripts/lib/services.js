@@ -2,13 +2,45 @@
 /** Bring up the embedded services a profile needs: PostgreSQL + PostGIS, the S3 fake, the mail catcher. */
 import fs from 'node:fs';
 import path from 'node:path';
-import { ROOT } from './config.js';
+import { PORT_VARIABLES, ROOT } from './config.js';
 import { fatal, ok, step } from './log.js';
+import { portProblem } from './ports.js';
 import { ensureDatabase, ensurePostgresInstalled, startCluster } from './postgres.js';
-import { canConnect, onStop, startService, waitForPort } from './proc.js';
+import { onStop, startService, waitForPort } from './proc.js';
+
+/** @typedef {ReturnType<typeof import('./config.js').resolveConfig>} Config */
+
+const LABELS = {
+	app: 'app',
+	s3: 'S3 service',
+	smtp: 'mail service (SMTP)',
+	mailWeb: 'mail viewer'
+};
 
 /**
- * @param {ReturnType<typeof import('./config.js').resolveConfig>} config
+ * Before anything starts: every port this run will listen on (apart from PostgreSQL, which may be
+ * ours already and is checked when it starts) must be free. All problems are reported at once.
+ * @param {Config} config @param {(keyof typeof LABELS)[]} names
+ */
+export async function checkPortsFree(config, names) {
+	const wanted = names.filter(
+		(n) => n === 'app' || (n === 's3' ? config.embedded.s3 : config.embedded.mail)
+	);
+	const problems = [];
+	for (const name of wanted) {
+		const problem = await portProblem({
+			name: LABELS[name],
+			host: name === 'app' ? config.appEnv.HOST : config.host,
+			port: config.ports[name],
+			variable: PORT_VARIABLES[name]
+		});
+		if (problem) problems.push(problem);
+	}
+	if (problems.length) fatal(problems.join('\n'));
+}
+
+/**
+ * @param {Config} config
  * @param {{ freshDatabase?: boolean, freshObjects?: boolean, only?: ('postgres' | 's3' | 'mail')[] }} [options]
  */
 export async function startEmbeddedServices(config, options = {}) {
@@ -30,7 +62,7 @@ export async function startEmbeddedServices(config, options = {}) {
 			port: ports.postgres,
 			fast: config.profile === 'test' || config.profile === 'bench'
 		});
-		onStop(stop);
+		onStop('PostgreSQL', stop);
 		ensureDatabase({
 			host,
 			port: ports.postgres,
@@ -83,11 +115,6 @@ export async function startEmbeddedServices(config, options = {}) {
  * @param {string} name @param {number} port @param {string} host @param {string[]} args
  */
 async function startNodeService(name, port, host, args) {
-	if (await canConnect(host, port)) {
-		fatal(
-			`port ${host}:${port} for the ${name} service is already in use (another Thermalith running?). Stop it first.`
-		);
-	}
 	step(`starting ${name} service on ${host}:${port}`);
 	const child = startService(name, args, { ...process.env });
 	const exited = new Promise((_, reject) =>
