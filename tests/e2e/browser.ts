@@ -1,6 +1,12 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type ConsoleMessage, type Page } from 'playwright-core';
+import {
+	chromium,
+	type Browser,
+	type ConsoleMessage,
+	type Page,
+	type Response
+} from 'playwright-core';
 
 /** Where screenshots go (git-ignored). */
 export const ARTIFACTS = path.resolve('tests/artifacts');
@@ -17,7 +23,7 @@ export const appUrl = () => {
  * Never a downloaded browser.
  */
 export async function launch(): Promise<Browser> {
-	return chromium.launch({
+	const browser = await chromium.launch({
 		executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
 		headless: true,
 		args: [
@@ -30,6 +36,58 @@ export async function launch(): Promise<Browser> {
 			'--disable-sync'
 		]
 	});
+	const newPage = browser.newPage.bind(browser);
+	browser.newPage = async (...args) => waitForHydrationAfterLoads(await newPage(...args));
+	const newContext = browser.newContext.bind(browser);
+	browser.newContext = async (...args) => {
+		const context = await newContext(...args);
+		const contextPage = context.newPage.bind(context);
+		context.newPage = async () => waitForHydrationAfterLoads(await contextPage());
+		return context;
+	};
+	return browser;
+}
+
+/** A page of the app itself (not an error, a file or another site), which hydrates. */
+function isAppPage(response: Response | null) {
+	return (
+		response !== null &&
+		response.ok() &&
+		response.url().startsWith(appUrl()) &&
+		(response.headers()['content-type'] ?? '').startsWith('text/html')
+	);
+}
+
+/** Resolves once the page's script has taken over (the root layout marks <html data-hydrated>). */
+export async function hydrated(page: Page) {
+	await page.locator('html[data-hydrated]').waitFor({ state: 'attached' });
+}
+
+/**
+ * A user waits until a page responds; a test must too. After every full page load the test would
+ * otherwise type into fields and click buttons before the page's script runs: the click does
+ * nothing and the test waits in vain (seen on a busy machine). So the calls that load a page
+ * (goto, reload, waitForURL) resolve only once the page is hydrated.
+ */
+function waitForHydrationAfterLoads(page: Page): Page {
+	const goto = page.goto.bind(page);
+	page.goto = async (...args) => {
+		const response = await goto(...args);
+		if (isAppPage(response)) await hydrated(page);
+		return response;
+	};
+	const reload = page.reload.bind(page);
+	page.reload = async (...args) => {
+		const response = await reload(...args);
+		if (isAppPage(response)) await hydrated(page);
+		return response;
+	};
+	const waitForURL = page.waitForURL.bind(page);
+	page.waitForURL = async (...args) => {
+		await waitForURL(...args);
+		if (page.url().startsWith(appUrl())) await hydrated(page);
+	};
+	return page;
 }
 
 /** Collect console errors and failed requests of a page, so a test can assert there were none. */
