@@ -12,10 +12,23 @@ import { forgetService, recordService } from './runstate.js';
 export function run(cmd, args, options = {}) {
 	return new Promise((resolve, reject) => {
 		const child = spawn(cmd, args, { stdio: 'inherit', ...options });
+		// Recorded like a service, so a killed run's watcher stops it too (a Vitest run, a build).
+		const name = `task-${child.pid}`;
+		if (child.pid) {
+			tasks.add(child);
+			recordService(name, child.pid, args[0] ?? cmd);
+		}
 		child.on('error', reject);
-		child.on('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+		child.on('exit', (code, signal) => {
+			tasks.delete(child);
+			forgetService(name);
+			resolve(code ?? (signal ? 1 : 0));
+		});
 	});
 }
+
+/** Commands run to completion that are still running (stopped first by stopAll). @type {Set<import('node:child_process').ChildProcess>} */
+const tasks = new Set();
 
 /**
  * Run a command synchronously and capture its output.
@@ -113,6 +126,7 @@ let stopping = false;
 export async function stopAll() {
 	if (stopping) return;
 	stopping = true;
+	for (const child of tasks) child.kill('SIGTERM');
 	const running = services.filter(
 		({ child }) => child.exitCode === null && child.signalCode === null
 	);

@@ -100,7 +100,11 @@ export async function cleanUpLeftovers(dir, { stopPostgres }) {
 		const record = readJson(path.join(dir, file));
 		if (record && stillOurs(record.pid, record.marker)) {
 			await terminate(record.pid);
-			done.push(`stopped the ${record.name} service (pid ${record.pid})`);
+			done.push(
+				record.name.startsWith('task-')
+					? `stopped ${path.basename(record.marker)} (pid ${record.pid})`
+					: `stopped the ${record.name} service (pid ${record.pid})`
+			);
 		}
 		fs.rmSync(path.join(dir, file), { force: true });
 	}
