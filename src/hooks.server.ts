@@ -2,6 +2,7 @@ import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { building } from '$app/environment';
 import { svelteKitHandler } from 'better-auth/svelte-kit';
 import { auth } from '$lib/server/auth';
+import { stampClientAddress } from '$lib/server/auth/client-address';
 import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
@@ -25,6 +26,7 @@ export const init: ServerInit = async () => {
 };
 
 export const handle: Handle = async ({ event, resolve }) => {
+	stampClientAddress(event);
 	const current = building ? null : await auth().api.getSession({ headers: event.request.headers });
 	event.locals.user = current?.user ?? null;
 	event.locals.session = current?.session ?? null;

@@ -27,7 +27,11 @@ export function failure(message) {
 
 /** A problem the user can act on: printed as its message alone, without a stack. */
 export class FatalError extends Error {
-	name = 'FatalError';
+	/** @param {string} message */
+	constructor(message) {
+		super(message);
+		this.name = 'FatalError';
+	}
 }
 
 /**

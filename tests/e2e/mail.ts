@@ -2,7 +2,7 @@
 export async function waitForMail(
 	address: string,
 	subjectStartsWith: string,
-	timeoutMs = 10_000
+	timeoutMs = 60_000
 ): Promise<{ subject: string; text: string; html: string }> {
 	const base = process.env.MAIL_VIEWER_URL;
 	if (!base)

@@ -1,11 +1,40 @@
+import { Agent, fetch as undiciFetch } from 'undici';
 import { testEnv } from './env';
 
 /**
+ * Every loopback address (127.0.0.0/8) is this machine, so each test client can connect from one of
+ * its own, as different people's browsers do. Per-address limits (sign-in, sign-up, reset mails)
+ * then count each client alone, and a test that exhausts a limit does not block the next one.
+ * A random start keeps two test files apart.
+ */
+let nextAddress = Math.floor(Math.random() * 2 ** 22);
+export function ownAddress(): string {
+	const n = nextAddress++;
+	return `127.${1 + ((n >> 16) % 200)}.${(n >> 8) & 255}.${2 + ((n & 255) % 252)}`;
+}
+
+/**
  * A minimal browser stand-in for form posts: keeps cookies, sends the Origin header SvelteKit's
- * CSRF check wants, and never follows redirects so tests can assert them.
+ * CSRF check wants, and never follows redirects so tests can assert them. It connects from a
+ * loopback address of its own (or `from`), as a browser on another computer would.
  */
 export class Client {
 	private cookies = new Map<string, string>();
+	private readonly dispatcher: Agent;
+
+	readonly address: string;
+
+	constructor(options: { from?: string } = {}) {
+		this.address = options.from ?? ownAddress();
+		this.dispatcher = new Agent({ localAddress: this.address });
+	}
+
+	private fetch(url: string, init: RequestInit): Promise<Response> {
+		return undiciFetch(url, {
+			...(init as Parameters<typeof undiciFetch>[1]),
+			dispatcher: this.dispatcher
+		}) as unknown as Promise<Response>;
+	}
 
 	private cookieHeader() {
 		return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
@@ -24,7 +53,7 @@ export class Client {
 	}
 
 	async get(path: string): Promise<Response> {
-		const res = await fetch(testEnv.appUrl() + path, {
+		const res = await this.fetch(testEnv.appUrl() + path, {
 			headers: { cookie: this.cookieHeader(), accept: 'text/html' },
 			redirect: 'manual'
 		});
@@ -34,7 +63,7 @@ export class Client {
 
 	/** POST a form to a page action (`?/name`) or default action, as a browser without JavaScript. */
 	async post(path: string, fields: Record<string, string>): Promise<Response> {
-		const res = await fetch(testEnv.appUrl() + path, {
+		const res = await this.fetch(testEnv.appUrl() + path, {
 			method: 'POST',
 			headers: {
 				'content-type': 'application/x-www-form-urlencoded',
@@ -51,10 +80,15 @@ export class Client {
 	}
 
 	/** POST JSON to a better-auth endpoint under /api/auth, as its browser client would. */
-	async api(path: string, body: unknown): Promise<Response> {
-		const res = await fetch(`${testEnv.appUrl()}/api/auth${path}`, {
+	async api(
+		path: string,
+		body: unknown,
+		extraHeaders: Record<string, string> = {}
+	): Promise<Response> {
+		const res = await this.fetch(`${testEnv.appUrl()}/api/auth${path}`, {
 			method: 'POST',
 			headers: {
+				...extraHeaders,
 				'content-type': 'application/json',
 				origin: testEnv.appUrl(),
 				cookie: this.cookieHeader(),
@@ -70,7 +104,7 @@ export class Client {
 
 	/** Send JSON to an app API route with this client's session. */
 	async json(path: string, body?: unknown, method = 'POST'): Promise<Response> {
-		const res = await fetch(testEnv.appUrl() + path, {
+		const res = await this.fetch(testEnv.appUrl() + path, {
 			method,
 			headers: {
 				'content-type': 'application/json',
@@ -111,14 +145,19 @@ export async function mailFor(
 	return res.json();
 }
 
-/** Wait (up to 10 s) for a message to an address whose subject starts with a prefix; some are sent in the background. */
-export async function waitForMail(address: string, subjectStartsWith: string) {
-	for (let i = 0; i < 50; i++) {
-		const found = (await mailFor(address)).find((m) => m.subject.startsWith(subjectStartsWith));
-		if (found) return found;
-		await new Promise((r) => setTimeout(r, 200));
+/**
+ * Wait for the `nth` message (1 = the first) to an address whose subject starts with a prefix;
+ * mail is sent after the answer, in the background. The test's own timeout bounds the wait.
+ */
+export async function waitForMail(address: string, subjectStartsWith: string, nth = 1) {
+	const deadline = Date.now() + 120_000;
+	while (Date.now() < deadline) {
+		const found = (await mailFor(address)).filter((m) => m.subject.startsWith(subjectStartsWith));
+		// mailFor lists newest first.
+		if (found.length >= nth) return found[found.length - nth];
+		await new Promise((r) => setTimeout(r, 100));
 	}
-	throw new Error(`no "${subjectStartsWith}" mail for ${address}`);
+	throw new Error(`no "${subjectStartsWith}" mail no. ${nth} for ${address}`);
 }
 
 /** The first link to the app in a plain-text message. */

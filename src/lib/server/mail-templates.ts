@@ -53,6 +53,13 @@ export const mailTemplates = {
 			{ label: 'Approve the change', url },
 			'If you did not ask for this, ignore this message and your address stays as it is; consider changing your password.'
 		),
+	existingAccount: (name: string, signInUrl: string, resetUrl: string) =>
+		compose(
+			'You already have a Thermalith account',
+			`Hello ${name}, someone (hopefully you) tried to create a Thermalith account with this address, which has one already. Sign in at ${signInUrl}, or choose a new password if you forgot it.`,
+			{ label: 'Choose a new password', url: resetUrl },
+			'If this was not you, ignore this message: nothing changed on your account.'
+		),
 	invitation: (organisation: string, inviter: string, role: string, url: string) =>
 		compose(
 			`Invitation to join ${organisation}`,

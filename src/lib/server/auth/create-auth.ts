@@ -7,6 +7,9 @@ import type { Db } from '../db/client';
 import * as schema from '../db/schema';
 import { mailTemplates, type MailContent } from '../mail-templates';
 import { ac, roles, ROLE_LABELS, isOrgRole } from '../permissions';
+import { and, eq, like } from 'drizzle-orm';
+import { CLIENT_ADDRESS_HEADER } from './client-address';
+import { betterAuthRateRules } from './rate-rules';
 import { signInGuard } from './sign-in-guard';
 
 export interface AuthSettings {
@@ -47,6 +50,31 @@ export function createAuth(s: AuthSettings) {
 		emailAndPassword: {
 			enabled: true,
 			minPasswordLength: 10,
+			// Signing up never says whether an address has an account: with autoSignIn off better-auth
+			// answers a duplicate like a new sign-up, and the address's owner gets a note instead.
+			// The confirmation link signs the new user in (autoSignInAfterVerification).
+			autoSignIn: false,
+			onExistingUserSignUp: async ({ user }) => {
+				await s.send(
+					user.email,
+					mailTemplates.existingAccount(
+						user.name,
+						`${s.baseURL}/sign-in`,
+						`${s.baseURL}/forgot-password`
+					)
+				);
+			},
+			// A used reset link retires every other reset link of the account.
+			onPasswordReset: async ({ user }) => {
+				await s.db
+					.delete(schema.verification)
+					.where(
+						and(
+							eq(schema.verification.value, user.id),
+							like(schema.verification.identifier, 'reset-password:%')
+						)
+					);
+			},
 			// Unverified accounts may sign in and browse; uploading checks emailVerified.
 			requireEmailVerification: false,
 			resetPasswordTokenExpiresIn: 60 * 60,
@@ -88,13 +116,22 @@ export function createAuth(s: AuthSettings) {
 			storage: 'database',
 			window: 60,
 			max: 200,
-			customRules: {
-				'/sign-in/email': { window: 60, max: 20 },
-				'/sign-up/email': { window: 60, max: 10 },
-				'/request-password-reset': { window: 300, max: 5 }
+			customRules: betterAuthRateRules
+		},
+		advanced: {
+			useSecureCookies: s.production && s.baseURL.startsWith('https://'),
+			// The client's address as the app saw the connection, never X-Forwarded-For as sent.
+			ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+			// better-auth skips its origin check when NODE_ENV is "test"; the tested build must not.
+			disableOriginCheck: false,
+			// Mail goes out after the answer, so an answer takes as long whether or not an address
+			// has an account (a reset request for a known address used to take 16 times longer).
+			backgroundTasks: {
+				handler: (task) => {
+					task.catch((err: unknown) => console.error('background mail or task failed:', err));
+				}
 			}
 		},
-		advanced: { useSecureCookies: s.production && s.baseURL.startsWith('https://') },
 		hooks: signInGuard(s.db),
 		plugins: [
 			organization({

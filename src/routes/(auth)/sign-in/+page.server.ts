@@ -1,6 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { auth } from '$lib/server/auth';
 import { authFailure } from '$lib/server/auth/errors';
+import { limitAuthForm } from '$lib/server/auth/form-rate-limit';
+import { getDb } from '$lib/server/db';
 import { parseForm } from '$lib/schemas/form';
 import { signInSchema } from '$lib/schemas/account';
 import { safeNext } from '$lib/server/safe-next';
@@ -12,7 +14,10 @@ export const load: PageServerLoad = ({ locals, url }) => {
 };
 
 export const actions: Actions = {
-	default: async ({ request, url }) => {
+	default: async (event) => {
+		const { request, url } = event;
+		const limited = await limitAuthForm(getDb(), event, '/sign-in/email');
+		if (limited) return limited;
 		const form = await request.formData();
 		const parsed = parseForm(signInSchema, form);
 		if (!parsed.ok) return fail(400, parsed);

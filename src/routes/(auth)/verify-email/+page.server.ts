@@ -2,6 +2,8 @@ import { fail } from '@sveltejs/kit';
 import { APIError } from 'better-auth/api';
 import { auth } from '$lib/server/auth';
 import { authFailure } from '$lib/server/auth/errors';
+import { getDb } from '$lib/server/db';
+import { limitAuthForm } from '$lib/server/auth/form-rate-limit';
 import { parseForm } from '$lib/schemas/form';
 import { emailOnlySchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';
@@ -32,7 +34,10 @@ export const load: PageServerLoad = async ({ url, request, locals }) => {
 };
 
 export const actions: Actions = {
-	resend: async ({ request }) => {
+	resend: async (event) => {
+		const { request } = event;
+		const limited = await limitAuthForm(getDb(), event, '/send-verification-email');
+		if (limited) return limited;
 		const parsed = parseForm(emailOnlySchema, await request.formData());
 		if (!parsed.ok) return fail(400, parsed);
 		try {
