@@ -6,7 +6,8 @@ import { stampClientAddress } from '$lib/server/auth/client-address';
 import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
-import { closeMailer } from '$lib/server/mail';
+import { stopJobs } from '$lib/server/jobs/boss';
+import { closeMailer, startMailWorker } from '$lib/server/mail';
 import { viewerFor } from '$lib/server/viewer';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
@@ -18,10 +19,17 @@ export const init: ServerInit = async () => {
 			.then((stale) => stale && console.warn(`${stale} interrupted import(s) marked as failed`))
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
+	if (!building && config().THERMALITH_WORKERS === 'on') {
+		// Queued jobs (mail) are taken by this process; a queue that is not reachable yet is retried
+		// by pg-boss once it is, and must not keep the app from starting.
+		startMailWorker().catch((err) => console.warn('job workers not started:', err.message));
+	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.
 	process.once('sveltekit:shutdown', () => {
-		void closeDb();
-		closeMailer();
+		void stopJobs().finally(() => {
+			void closeDb();
+			closeMailer();
+		});
 	});
 };
 

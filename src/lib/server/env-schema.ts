@@ -36,6 +36,8 @@ export const envSchema = z
 			.int()
 			.min(1024)
 			.default(50 * 1024 * 1024),
+		// "off" on web servers when separate worker instances take the queued jobs (see README).
+		THERMALITH_WORKERS: z.enum(['on', 'off']).default('on'),
 		THERMALITH_PROFILE: z
 			.enum(['dev', 'start', 'test', 'bench', 'production'])
 			.default('production')

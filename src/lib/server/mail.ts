@@ -1,6 +1,10 @@
 import type { Transporter } from 'nodemailer';
 import { config } from './config';
+import { jobs } from './jobs/boss';
+import { enqueueMail, workMailQueue, type OutgoingMail } from './jobs/mail-queue';
 import { createMailTransport } from './mail-transport';
+
+export type { OutgoingMail };
 
 let transporter: Transporter | undefined;
 
@@ -19,16 +23,19 @@ export function mailer(): Transporter {
 	return transporter;
 }
 
-export interface OutgoingMail {
-	to: string;
-	subject: string;
-	text: string;
-	html: string;
+/** Queue one message (plain text and HTML, from MAIL_FROM); a worker delivers it, with retries. */
+export async function sendMail(message: OutgoingMail): Promise<void> {
+	await enqueueMail(await jobs(config().DATABASE_URL), message);
 }
 
-/** Send one message with a plain-text and an HTML part, from MAIL_FROM. */
-export async function sendMail(message: OutgoingMail): Promise<void> {
+/** Hand one message to the SMTP server now (the mail queue's worker). */
+export async function deliverMail(message: OutgoingMail): Promise<void> {
 	await mailer().sendMail({ from: config().MAIL_FROM, ...message });
+}
+
+/** Start delivering queued mail in this process. */
+export async function startMailWorker(): Promise<void> {
+	await workMailQueue(await jobs(config().DATABASE_URL), deliverMail);
 }
 
 /** Close pooled SMTP connections (called on shutdown). */

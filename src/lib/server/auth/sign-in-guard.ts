@@ -1,5 +1,5 @@
 import { APIError, createAuthMiddleware } from 'better-auth/api';
-import { and, count, eq, gt, inArray, sql } from 'drizzle-orm';
+import { and, count, eq, gt, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { signInFailure } from '../db/schema';
 
@@ -7,15 +7,16 @@ import { signInFailure } from '../db/schema';
 export const MAX_FAILED_SIGN_INS = 5;
 export const FAILED_SIGN_IN_WINDOW_MS = 15 * 60 * 1000;
 
-/** Take back one attempt row of an address (its own, or an equal one: only the count matters). */
+/**
+ * Take back one attempt row of an address (its own, or an equal one: only the count matters).
+ * SKIP LOCKED: two concurrent withdrawals pick two different rows, never the same one twice.
+ */
 async function withdrawAttempt(db: Db, email: string) {
-	const newest = db
-		.select({ id: signInFailure.id })
-		.from(signInFailure)
-		.where(eq(signInFailure.email, email))
-		.orderBy(sql`${signInFailure.at} DESC`)
-		.limit(1);
-	await db.delete(signInFailure).where(inArray(signInFailure.id, newest));
+	await db.execute(sql`
+		DELETE FROM ${signInFailure} WHERE ${signInFailure.id} = (
+			SELECT ${signInFailure.id} FROM ${signInFailure} WHERE ${signInFailure.email} = ${email}
+			ORDER BY ${signInFailure.at} DESC LIMIT 1 FOR UPDATE SKIP LOCKED
+		)`);
 }
 
 /**
@@ -32,14 +33,17 @@ export function signInGuard(db: Db) {
 		before: createAuthMiddleware(async (ctx) => {
 			if (ctx.path !== '/sign-in/email') return;
 			const email = String(ctx.body?.email ?? '').toLowerCase();
-			await db.insert(signInFailure).values({ email });
+			const [own] = await db
+				.insert(signInFailure)
+				.values({ email })
+				.returning({ id: signInFailure.id });
 			const since = new Date(Date.now() - FAILED_SIGN_IN_WINDOW_MS);
 			const [{ n }] = await db
 				.select({ n: count() })
 				.from(signInFailure)
 				.where(and(eq(signInFailure.email, email), gt(signInFailure.at, since)));
 			if (n > MAX_FAILED_SIGN_INS) {
-				await withdrawAttempt(db, email);
+				await db.delete(signInFailure).where(eq(signInFailure.id, own.id));
 				throw new APIError('TOO_MANY_REQUESTS', {
 					message:
 						'Too many failed sign-ins for this address. Wait 15 minutes or reset your password.'

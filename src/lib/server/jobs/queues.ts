@@ -1,0 +1,18 @@
+import type PgBoss from 'pg-boss';
+
+/**
+ * The product's queues on its one job queue (pg-boss in PostgreSQL): name and retry policy each.
+ * Mail: an unreachable mail server must not lose a message or fail the action that sent it, so
+ * delivery is retried with exponential backoff (10 s, 20 s, 40 s, … about 2.8 hours in all).
+ */
+export const QUEUES = {
+	mail: { name: 'mail', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 120 }
+} as const satisfies Record<string, PgBoss.Queue>;
+
+/** Create every queue (pg-boss 10 needs a queue before its first job); safe to repeat. */
+export async function ensureQueues(boss: PgBoss, queues: PgBoss.Queue[] = Object.values(QUEUES)) {
+	const existing = new Set((await boss.getQueues()).map((q) => q.name));
+	for (const queue of queues) {
+		if (!existing.has(queue.name)) await boss.createQueue(queue.name, queue);
+	}
+}
