@@ -76,7 +76,7 @@ describe('npm run bench on a fresh clone', () => {
 			.filter((f) => f.endsWith('.bench.ts'));
 		expect(benchFiles.length).toBeGreaterThanOrEqual(4);
 
-		const env = { ...process.env, DATABASE_URL: databaseUrl };
+		const env: NodeJS.ProcessEnv = { ...process.env, DATABASE_URL: databaseUrl };
 		delete env.THERMALITH_BENCH_FIGURES;
 		delete env.BENCH_DRY_RUN;
 		const { code, output } = await runBench(['--dry-run'], env);
