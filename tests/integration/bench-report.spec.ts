@@ -174,9 +174,9 @@ describe('buildReport', () => {
 
 	it('prints targets, verdicts, ratios, the machine and the commit', () => {
 		const text = formatReport(report([thermal, geostats]));
-		expect(text).toContain('commit abcdef012345');
+		expect(text).toContain('commit `abcdef012345`');
 		expect(text).toContain(
-			'2 × Test CPU, Node v20.20.2, load average 3.21 at the start, 4.50 at the end'
+			'2 × Test CPU, Node v20.20.2, 1-minute load average 3.21 at the start, 4.50 at the end'
 		);
 		expect(text).toMatch(/Slow one\s+1\.2 s\s+< 1 s\s+miss/);
 		expect(text).toContain(
@@ -225,8 +225,20 @@ describe('compareReports', () => {
 			expect.objectContaining({ id: 'thermal.slow', before: 1200, direction: 'only before' })
 		]);
 		const text = formatComparison(before, after, 'old.json');
-		expect(text).toContain('Before (old.json): `npm run bench` at commit abcdef012345');
+		expect(text).toContain('Before (old.json): `npm run bench` at commit `abcdef012345`');
 		expect(text).toMatch(/thermal\.mc\s+250 ms\s+200 ms\s+-20\.0 %\s+better/);
+	});
+
+	it('leaves out the figures of bench files a filtered run did not run', () => {
+		const before = report([thermal, geostats]);
+		const after = report([{ ...thermal, figures: [thermal.figures[0]] }], { complete: false });
+		expect(compareReports(before, after).map((c) => [c.id, c.direction])).toEqual([
+			['thermal.mc', 'same'],
+			['thermal.slow', 'only before']
+		]);
+		expect(formatComparison(before, after, 'x')).toContain(
+			'1 figure of bench files not run this time left out'
+		);
 	});
 
 	it('warns when a dry run is compared', () => {
@@ -252,7 +264,7 @@ describe('README block', () => {
 
 	it('names the command, commit and load, lists every figure and peer, and replaces only the block', () => {
 		const block = readmeBlock(report([thermal, geostats]));
-		expect(block).toContain('`npm run bench` at commit abcdef012345');
+		expect(block).toContain('`npm run bench` at commit `abcdef012345`');
 		expect(block).toContain('load average 3.21 at the start, 4.50 at the end');
 		expect(block).toContain('| Slow one | 1.2 s | < 1 s | miss |');
 		expect(block).toContain('| IDW | gdal_grid invdist | 100 ms | 4.00 | incl. start-up |');
