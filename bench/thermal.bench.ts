@@ -1,7 +1,6 @@
-// Timings of the thermal core (issue 3). Run: npx tsx bench/thermal.bench.ts
-// Each case runs once to warm up, then REPEATS times; the table shows the median.
+// Timings of the thermal core. Run with `npm run bench -- thermal` (or `npx tsx bench/thermal.bench.ts`).
+// Each case runs once to warm up, then REPEATS times; the figure is the median.
 
-import { cpus, loadavg } from 'node:os';
 import {
 	heatFlowFromLog,
 	monteCarloGeotherm,
@@ -9,8 +8,11 @@ import {
 	type CrustLayer,
 	type GeothermInput
 } from '../src/lib/thermal/index';
+import { figure, size } from './report';
 
-const REPEATS = 5;
+const REPEATS = size(5, 1);
+const GEOTHERMS = size(10_000, 10);
+const MC_SAMPLES = size(10_000, 50);
 
 // An invented four-layer lithosphere to 100 km: every closed-form feature is exercised.
 const layers: CrustLayer[] = [
@@ -65,7 +67,7 @@ function time(fn: () => unknown): number {
 let sink = 0; // keeps results alive so nothing is optimised away
 
 const geotherms = () => {
-	for (let i = 0; i < 10_000; i++) {
+	for (let i = 0; i < GEOTHERMS; i++) {
 		const p = solveGeotherm({ ...model, surfaceHeatFlowMWm2: 55 + (i % 20) });
 		sink += p.temperatureC[p.temperatureC.length - 1];
 	}
@@ -79,7 +81,7 @@ const monteCarlo = (stepM: number) => () => {
 			conductivitySigmaWmK: 0.1 * l.conductivityWmK,
 			heatProductionSigmaUWm3: 0.2 * l.heatProductionUWm3
 		})),
-		samples: 10_000,
+		samples: MC_SAMPLES,
 		seed: 1,
 		isothermsC: [300, 600]
 	});
@@ -103,28 +105,37 @@ const bullard = () => {
 	sink += heatFlowFromLog({ depthM, temperatureC, conductivity, method: 'bullard' }).heatFlowMWm2;
 };
 
-const cases: [string, () => unknown, number][] = [
-	['10,000 four-layer geotherms, 0-100 km at 100 m', geotherms, 1000],
-	['Monte Carlo band, 10,000 samples, 1,001 depths (100 m)', monteCarlo(100), 300],
-	['Monte Carlo band, 10,000 samples, 101 depths (1 km)', monteCarlo(1000), 300],
-	['Bullard fit, 5,000-point log, 50 units', bullard, 50]
+const cases: [string, string, () => unknown, number][] = [
+	[
+		'thermal.geotherms-10k',
+		'10,000 four-layer geotherms to 100 km at 100 m spacing',
+		geotherms,
+		1000
+	],
+	[
+		'thermal.monte-carlo-100m',
+		'Monte Carlo band, 10,000 samples, 1,001 depths (100 m spacing)',
+		monteCarlo(100),
+		300
+	],
+	[
+		'thermal.monte-carlo-1km',
+		'Monte Carlo band, 10,000 samples, 101 depths (1 km spacing)',
+		monteCarlo(1000),
+		300
+	],
+	['thermal.bullard-5k', 'Bullard fit of a 5,000-point log, 50 units', bullard, 50]
 ];
 
-const rows = cases.map(([name, fn, target]) => {
-	const ms = time(fn);
-	return { name, ms, target, pass: ms < target };
-});
-const w = Math.max(...rows.map((row) => row.name.length));
-console.log(`${'case'.padEnd(w)}  ${'ms'.padStart(9)}  ${'target'.padStart(8)}  result`);
-for (const row of rows) {
-	console.log(
-		`${row.name.padEnd(w)}  ${row.ms.toFixed(1).padStart(9)}  ${`< ${row.target}`.padStart(8)}  ${row.pass ? 'pass' : 'FAIL'}`
-	);
+for (const [id, label, fn, target] of cases) {
+	figure({
+		id,
+		label,
+		value: time(fn),
+		unit: 'ms',
+		target,
+		better: 'lower',
+		note: `median of ${REPEATS}`
+	});
 }
-console.log(
-	`(median of ${REPEATS} runs; ${cpus().length} CPUs, load average ${loadavg()
-		.map((l) => l.toFixed(2))
-		.join(' ')}; Node ${process.version})`
-);
-if (!Number.isFinite(sink)) console.log('(sink not finite)');
-process.exitCode = rows.every((row) => row.pass) ? 0 : 1;
+if (!Number.isFinite(sink)) throw new Error('a thermal result was not finite');

@@ -152,14 +152,3 @@ export async function stopAll() {
 	}
 	if (names.length) console.log('everything this run started is stopped');
 }
-
-/** Kept for scripts not yet on orchestrate(): stop everything on Ctrl-C / SIGTERM, then exit. */
-export function stopOnSignals() {
-	for (const signal of /** @type {const} */ (['SIGINT', 'SIGTERM', 'SIGHUP'])) {
-		process.on(signal, async () => {
-			console.log(`\nreceived ${signal}, stopping services…`);
-			await stopAll();
-			process.exit(0);
-		});
-	}
-}
