@@ -84,6 +84,22 @@ export class Client {
 		return res;
 	}
 
+	/** PUT raw bytes to an app route with this client's session, as the browser's upload does. */
+	async put(path: string, bytes: Uint8Array): Promise<Response> {
+		const res = await fetch(testEnv.appUrl() + path, {
+			method: 'PUT',
+			headers: {
+				'content-type': 'application/octet-stream',
+				origin: testEnv.appUrl(),
+				cookie: this.cookieHeader()
+			},
+			body: new Uint8Array(bytes),
+			redirect: 'manual'
+		});
+		this.remember(res);
+		return res;
+	}
+
 	get signedIn() {
 		return [...this.cookies.keys()].some((k) => k.includes('session_token'));
 	}
