@@ -79,6 +79,10 @@ describe('attachments', () => {
 		expect(download.headers.get('location')).toBeNull();
 		expect(Buffer.from(await download.arrayBuffer()).equals(png)).toBe(true);
 
+		const headOnly = await contributor.get(`/api/v1/attachments/${id}/download`, 'HEAD');
+		expect(headOnly.status).toBe(200);
+		expect(headOnly.headers.get('content-length')).toBe(String(png.length));
+
 		const thumbRes = await contributor.get(`/api/v1/attachments/${id}/thumbnail`);
 		expect(thumbRes.status).toBe(200);
 		expect(thumbRes.headers.get('content-type')).toBe('image/webp');
@@ -90,6 +94,7 @@ describe('attachments', () => {
 		const anonymous = new Client();
 		expect((await anonymous.get(`/api/v1/attachments/${id}/download`)).status).toBe(404);
 		expect((await anonymous.get(`/api/v1/attachments/${id}/thumbnail`)).status).toBe(404);
+		expect((await anonymous.get(`/api/v1/attachments/${id}/download`, 'HEAD')).status).toBe(404);
 		const other = await signIn('owner@lindmark-thermics.example', DEMO_PASSWORD);
 		const otherDownload = await other.get(`/api/v1/attachments/${id}/download`);
 		expect(otherDownload.status).toBe(404);

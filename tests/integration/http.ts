@@ -23,8 +23,9 @@ export class Client {
 		}
 	}
 
-	async get(path: string): Promise<Response> {
+	async get(path: string, method: 'GET' | 'HEAD' = 'GET'): Promise<Response> {
 		const res = await fetch(testEnv.appUrl() + path, {
+			method,
 			headers: { cookie: this.cookieHeader(), accept: 'text/html' },
 			redirect: 'manual'
 		});

@@ -7,3 +7,10 @@ export const GET: RequestHandler = async ({ params, locals }) => {
 	const { body, headers } = await openAttachment(getDb(), locals.viewer, params.id, 'file');
 	return new Response(body, { headers });
 };
+
+/** The same answer without the bytes; the store's stream is closed at once, not left open. */
+export const HEAD: RequestHandler = async ({ params, locals }) => {
+	const { body, headers } = await openAttachment(getDb(), locals.viewer, params.id, 'file');
+	await body.cancel();
+	return new Response(null, { headers });
+};
