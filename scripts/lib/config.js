@@ -82,14 +82,18 @@ export function resolveConfig(profile, env = process.env) {
 		S3_ENDPOINT: env.S3_ENDPOINT ?? `http://${host}:${port('s3')}`,
 		S3_BUCKET: env.S3_BUCKET ?? 'thermalith',
 		S3_REGION: env.S3_REGION ?? 'us-east-1',
-		// s3rver accepts any signature made with its well-known key pair.
-		S3_ACCESS_KEY_ID: env.S3_ACCESS_KEY_ID ?? 'S3RVER',
-		S3_SECRET_ACCESS_KEY: env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
 		S3_FORCE_PATH_STYLE: env.S3_FORCE_PATH_STYLE ?? 'true',
 		MAIL_FROM: env.MAIL_FROM ?? 'Thermalith <no-reply@thermalith.local>',
 		BETTER_AUTH_SECRET: env.BETTER_AUTH_SECRET ?? localSecret(storageDir),
 		BODY_SIZE_LIMIT: env.BODY_SIZE_LIMIT ?? '60M'
 	};
+	// The embedded store checks every signature against a key pair made once per checkout (like
+	// the auth secret), never a well-known one; an external store needs its own keys set.
+	const s3Keys = embedded.s3 ? localS3Keys(storageDir) : undefined;
+	const s3KeyId = env.S3_ACCESS_KEY_ID ?? s3Keys?.accessKeyId;
+	const s3Secret = env.S3_SECRET_ACCESS_KEY ?? s3Keys?.secretAccessKey;
+	if (s3KeyId !== undefined) appEnv.S3_ACCESS_KEY_ID = s3KeyId;
+	if (s3Secret !== undefined) appEnv.S3_SECRET_ACCESS_KEY = s3Secret;
 	if (embedded.mail) {
 		appEnv.SMTP_URL = `smtp://${host}:${port('smtp')}`;
 		appEnv.MAIL_VIEWER_URL = `http://${host}:${port('mailWeb')}`;
@@ -137,4 +141,25 @@ function localSecret(storageDir) {
 	const secret = crypto.randomBytes(32).toString('base64url');
 	fs.writeFileSync(file, secret + '\n', { mode: 0o600 });
 	return secret;
+}
+
+/**
+ * The embedded object store's key pair, made once per storage folder and kept there (mode 0600),
+ * so the app, the store and the tests of one checkout share it and nobody else knows it.
+ * @param {string} storageDir
+ * @returns {{ accessKeyId: string, secretAccessKey: string }}
+ */
+function localS3Keys(storageDir) {
+	const file = path.join(storageDir, 's3-keys.json');
+	if (fs.existsSync(file)) return JSON.parse(fs.readFileSync(file, 'utf8'));
+	fs.mkdirSync(storageDir, { recursive: true });
+	const keys = {
+		accessKeyId: `TL${crypto.randomBytes(9).toString('hex').toUpperCase()}`,
+		secretAccessKey: crypto.randomBytes(30).toString('base64url')
+	};
+	// Written to a temporary name and renamed, so a second process never reads half a file.
+	const tmp = `${file}.${process.pid}.tmp`;
+	fs.writeFileSync(tmp, JSON.stringify(keys) + '\n', { mode: 0o600 });
+	fs.renameSync(tmp, file);
+	return keys;
 }

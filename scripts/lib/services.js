@@ -76,17 +76,29 @@ export async function startEmbeddedServices(config, options = {}) {
 	if (embedded.s3) {
 		const dir = path.join(storageDir, 's3');
 		if (options.freshObjects) fs.rmSync(dir, { recursive: true, force: true });
-		await startNodeService('s3', ports.s3, host, [
-			path.join(ROOT, 'scripts/services/s3-fake.js'),
-			'--port',
-			String(ports.s3),
-			'--address',
+		// The keys go to the store through its environment (not its command line, which `ps` shows).
+		const keys = {
+			S3_ACCESS_KEY_ID: config.appEnv.S3_ACCESS_KEY_ID,
+			S3_SECRET_ACCESS_KEY: config.appEnv.S3_SECRET_ACCESS_KEY,
+			S3_REGION: config.appEnv.S3_REGION
+		};
+		await startNodeService(
+			's3',
+			ports.s3,
 			host,
-			'--directory',
-			dir,
-			'--bucket',
-			config.appEnv.S3_BUCKET
-		]);
+			[
+				path.join(ROOT, 'scripts/services/s3-fake.js'),
+				'--port',
+				String(ports.s3),
+				'--address',
+				host,
+				'--directory',
+				dir,
+				'--bucket',
+				config.appEnv.S3_BUCKET
+			],
+			keys
+		);
 	} else if (wanted.includes('s3')) {
 		ok(`using the object store at S3_ENDPOINT (embedded S3 fake not started)`);
 	}
@@ -113,10 +125,11 @@ export async function startEmbeddedServices(config, options = {}) {
 
 /**
  * @param {string} name @param {number} port @param {string} host @param {string[]} args
+ * @param {Record<string, string>} [env] added to this process's environment for the service
  */
-async function startNodeService(name, port, host, args) {
+async function startNodeService(name, port, host, args, env = {}) {
 	step(`starting ${name} service on ${host}:${port}`);
-	const child = startService(name, args, { ...process.env });
+	const child = startService(name, args, { ...process.env, ...env });
 	const exited = new Promise((_, reject) =>
 		child.once('exit', (code) => reject(new Error(`${name} service exited with code ${code}`)))
 	);

@@ -52,8 +52,9 @@ export class Client {
 		}
 	}
 
-	async get(path: string): Promise<Response> {
+	async get(path: string, method: 'GET' | 'HEAD' = 'GET'): Promise<Response> {
 		const res = await this.fetch(testEnv.appUrl() + path, {
+			method,
 			headers: { cookie: this.cookieHeader(), accept: 'text/html' },
 			redirect: 'manual'
 		});
@@ -112,6 +113,22 @@ export class Client {
 				cookie: this.cookieHeader()
 			},
 			body: body === undefined ? undefined : JSON.stringify(body),
+			redirect: 'manual'
+		});
+		this.remember(res);
+		return res;
+	}
+
+	/** PUT raw bytes to an app route with this client's session, as the browser's upload does. */
+	async put(path: string, bytes: Uint8Array): Promise<Response> {
+		const res = await this.fetch(testEnv.appUrl() + path, {
+			method: 'PUT',
+			headers: {
+				'content-type': 'application/octet-stream',
+				origin: testEnv.appUrl(),
+				cookie: this.cookieHeader()
+			},
+			body: new Uint8Array(bytes),
 			redirect: 'manual'
 		});
 		this.remember(res);

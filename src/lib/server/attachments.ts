@@ -1,11 +1,5 @@
 import { createHash, randomUUID } from 'node:crypto';
-import {
-	DeleteObjectCommand,
-	GetObjectCommand,
-	HeadObjectCommand,
-	PutObjectCommand
-} from '@aws-sdk/client-s3';
-import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand } from '@aws-sdk/client-s3';
 import { error } from '@sveltejs/kit';
 import { and, eq } from 'drizzle-orm';
 import { fileTypeFromBuffer } from 'file-type';
@@ -15,15 +9,32 @@ import type { Viewer } from './access';
 import { config } from './config';
 import type { Db } from './db/client';
 import { attachment, site } from './db/schema';
+import { checkedStream } from './files/checked-stream';
+import { readBodyUpTo } from './files/read-body';
 import { datasetForViewer, requireUpload } from './repositories/dataset-access';
 import { bucket, s3 } from './storage';
 
-const UPLOAD_URL_SECONDS = 15 * 60;
-const DOWNLOAD_URL_SECONDS = 60;
+/*
+ * Browsers never talk to the object store: they send a file's bytes to the app
+ * (PUT /api/v1/attachments/{id}/content), which checks, hashes and stores them with its own keys
+ * in one step, and they read files back through the app after the access check. So there is no
+ * presigned URL that could be replayed to swap a checked file, the store needs no CORS rule and
+ * no port reachable from other machines, and a remote browser works like a local one.
+ */
+
 const THUMBNAIL_PX = 320;
 const MB = 1024 * 1024;
 
-/** Start an upload: check the right to upload and the size, record a pending file, presign a PUT. */
+function requireAttachmentId(id: string) {
+	if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id)) {
+		error(404, 'No such file.');
+	}
+}
+
+/** Where the browser sends a file's bytes: a path on the app's own origin. */
+export const contentPath = (id: string) => `/api/v1/attachments/${id}/content`;
+
+/** Start an upload: check the right to upload and the size, record a pending file. */
 export async function startAttachmentUpload(
 	db: Db,
 	viewer: Viewer,
@@ -46,32 +57,27 @@ export async function startAttachmentUpload(
 			.where(and(eq(site.id, input.siteId), eq(site.datasetId, input.datasetId)));
 		if (!s) error(404, 'No such site in this dataset.');
 	}
-	const objectKey = `datasets/${input.datasetId}/${randomUUID()}/${safeFileName(input.fileName)}`;
 	const [row] = await db
 		.insert(attachment)
 		.values({
 			datasetId: input.datasetId,
 			siteId: input.siteId ?? null,
-			objectKey,
+			objectKey: newObjectKey(input.datasetId, input.fileName),
 			fileName: input.fileName.slice(0, 255),
 			sizeBytes: input.sizeBytes,
 			uploadedBy: viewer.userId
 		})
 		.returning({ id: attachment.id });
-	const uploadUrl = await getSignedUrl(
-		s3(),
-		new PutObjectCommand({ Bucket: bucket(), Key: objectKey, ContentLength: input.sizeBytes }),
-		{ expiresIn: UPLOAD_URL_SECONDS }
-	);
-	return { id: row.id, uploadUrl };
+	return { id: row.id, uploadUrl: contentPath(row.id) };
 }
 
-async function readObject(key: string): Promise<Buffer> {
-	const res = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
-	return Buffer.from(await res.Body!.transformToByteArray());
+function newObjectKey(datasetId: string, fileName: string) {
+	return `datasets/${datasetId}/${randomUUID()}/${safeFileName(fileName)}`;
 }
 
-async function pendingAttachment(db: Db, viewer: Viewer, id: string) {
+/** A file the viewer may upload to (announced by them, dataset open to their uploads). */
+async function uploadableAttachment(db: Db, viewer: Viewer, id: string) {
+	requireAttachmentId(id);
 	const [row] = await db.select().from(attachment).where(eq(attachment.id, id));
 	if (!row) error(404, 'No such file.');
 	const found = await datasetForViewer(db, viewer, row.datasetId);
@@ -79,88 +85,145 @@ async function pendingAttachment(db: Db, viewer: Viewer, id: string) {
 	return row;
 }
 
-/** Remove a file's objects and row (used when a check fails and on delete). */
-async function discard(
-	db: Db,
-	row: { id: string; objectKey: string; thumbnailKey: string | null }
-) {
-	for (const key of [row.objectKey, row.thumbnailKey]) {
+async function removeObjects(keys: (string | null)[]) {
+	for (const key of keys) {
 		if (key)
 			await s3()
 				.send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }))
 				.catch(() => {});
 	}
+}
+
+/** Remove a file's objects and row (used when a check fails and on delete). */
+async function discard(
+	db: Db,
+	row: { id: string; objectKey: string; thumbnailKey: string | null }
+) {
+	await removeObjects([row.objectKey, row.thumbnailKey]);
 	await db.delete(attachment).where(eq(attachment.id, row.id));
 }
 
 /**
- * Finish an upload: the object must exist with the announced size, its type is sniffed from the
- * bytes (executables refused), its SHA-256 stored, and images get a thumbnail. A file that fails
- * a check is deleted again, so nothing half-accepted stays behind.
+ * Forget a file that failed during its upload. Only while it is still pending: a racing upload of
+ * the same file that already succeeded is left alone. Nothing was stored under its key yet.
  */
-export async function completeAttachmentUpload(db: Db, viewer: Viewer, id: string) {
-	const row = await pendingAttachment(db, viewer, id);
-	if (row.status === 'ready') return row;
-	const head = await s3()
-		.send(new HeadObjectCommand({ Bucket: bucket(), Key: row.objectKey }))
-		.catch(() => null);
-	if (!head) error(400, 'The upload did not reach the file store; try again.');
-	if (
-		head.ContentLength !== row.sizeBytes ||
-		(head.ContentLength ?? 0) > config().ATTACHMENT_MAX_BYTES
-	) {
-		await discard(db, row);
-		error(400, 'The stored file does not have the announced size; it was removed.');
+async function discardPending(db: Db, id: string) {
+	await db.delete(attachment).where(and(eq(attachment.id, id), eq(attachment.status, 'pending')));
+}
+
+async function thumbnailOf(bytes: Buffer): Promise<Buffer | null> {
+	try {
+		return await sharp(bytes)
+			.rotate()
+			.resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside' })
+			.webp({ quality: 80 })
+			.toBuffer();
+	} catch {
+		// A damaged image is still kept as a file; it just gets no preview.
+		return null;
 	}
-	const bytes = await readObject(row.objectKey);
+}
+
+/**
+ * Receive a pending file's bytes: they must have the announced size; the type is sniffed from the
+ * bytes (executables refused), the SHA-256 taken, images get a thumbnail, and only then is the file
+ * stored and marked ready. Once ready its content can never be replaced: a later PUT is refused
+ * (409), and the objects are written under a key of this attempt's own, which becomes the file's
+ * only if the row was still pending at that moment, so two racing uploads cannot mix.
+ * A file that fails a check is deleted again, so nothing half-accepted stays behind.
+ */
+export async function receiveAttachmentContent(
+	db: Db,
+	viewer: Viewer,
+	id: string,
+	body: ReadableStream<Uint8Array> | null
+) {
+	const row = await uploadableAttachment(db, viewer, id);
+	const replaced = () =>
+		error(
+			409,
+			'This file has been uploaded and checked already; its content cannot be replaced. Delete it and attach the new file.'
+		);
+	if (row.status !== 'pending') replaced();
+	if (row.uploadedBy !== viewer.userId) {
+		error(403, 'Only the person who announced this file can send its content.');
+	}
+	const announced = row.sizeBytes ?? 0;
+	const bytes = await readBodyUpTo(body, Math.min(announced, config().ATTACHMENT_MAX_BYTES)).catch(
+		() => 'interrupted' as const
+	);
+	if (bytes === 'interrupted') {
+		await discardPending(db, id);
+		error(400, 'The upload was interrupted; the file was not kept. Try again.');
+	}
+	if (!bytes || bytes.length !== announced) {
+		await discardPending(db, id);
+		error(400, 'The file does not have the announced size; it was not kept.');
+	}
 	const sniffed = sniffFile(row.fileName, bytes.subarray(0, 4100), await fileTypeFromBuffer(bytes));
 	if (!sniffed.ok) {
-		await discard(db, row);
+		await discardPending(db, id);
 		error(415, `Refused: ${sniffed.reason}.`);
 	}
-	let thumbnailKey: string | null = null;
-	if (sniffed.isImage) {
-		try {
-			const thumb = await sharp(bytes)
-				.rotate()
-				.resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside' })
-				.webp({ quality: 80 })
-				.toBuffer();
-			thumbnailKey = `${row.objectKey}.thumb.webp`;
+	const thumbnail = sniffed.isImage ? await thumbnailOf(bytes) : null;
+	const objectKey = newObjectKey(row.datasetId, row.fileName);
+	const thumbnailKey = thumbnail ? `${objectKey}.thumb.webp` : null;
+	try {
+		await s3().send(
+			new PutObjectCommand({
+				Bucket: bucket(),
+				Key: objectKey,
+				Body: bytes,
+				ContentType: sniffed.contentType
+			})
+		);
+		if (thumbnail && thumbnailKey) {
 			await s3().send(
 				new PutObjectCommand({
 					Bucket: bucket(),
 					Key: thumbnailKey,
-					Body: thumb,
+					Body: thumbnail,
 					ContentType: 'image/webp'
 				})
 			);
-		} catch {
-			// A damaged image is still kept as a file; it just gets no preview.
-			thumbnailKey = null;
 		}
+	} catch (err) {
+		console.error('attachment upload: the object store refused or is unreachable', err);
+		await removeObjects([objectKey, thumbnailKey]);
+		await discardPending(db, id);
+		error(503, 'The file store could not be reached; the file was not kept. Try again.');
 	}
 	const [updated] = await db
 		.update(attachment)
 		.set({
 			status: 'ready',
+			objectKey,
 			contentType: sniffed.contentType,
 			sha256: createHash('sha256').update(bytes).digest('hex'),
 			thumbnailKey
 		})
-		.where(eq(attachment.id, id))
+		.where(and(eq(attachment.id, id), eq(attachment.status, 'pending')))
 		.returning();
+	if (!updated) {
+		// Another upload finished first, or the file was deleted meanwhile: keep nothing of this one.
+		await removeObjects([objectKey, thumbnailKey]);
+		replaced();
+	}
 	return updated;
 }
 
-/** A short-lived download link, issued only after the viewer may see the file's dataset. */
-export async function attachmentDownloadUrl(
+/**
+ * A ready file's bytes (or its thumbnail) with the headers to serve them, after the viewer may
+ * see the file's dataset. The type is the one sniffed at upload, never the store's; files are
+ * served as downloads and their bytes are checked against the recorded SHA-256 on the way out.
+ */
+export async function openAttachment(
 	db: Db,
 	viewer: Viewer,
 	id: string,
 	variant: 'file' | 'thumbnail'
 ) {
-	if (!/^[0-9a-f-]{36}$/i.test(id)) error(404, 'No such file.');
+	requireAttachmentId(id);
 	const [row] = await db
 		.select()
 		.from(attachment)
@@ -169,21 +232,39 @@ export async function attachmentDownloadUrl(
 	await datasetForViewer(db, viewer, row.datasetId); // 404s when the dataset is not visible
 	const key = variant === 'thumbnail' ? row.thumbnailKey : row.objectKey;
 	if (!key) error(404, 'This file has no preview.');
+	const stored = await s3()
+		.send(new GetObjectCommand({ Bucket: bucket(), Key: key }))
+		.catch((err) => {
+			console.error(`attachment ${id}: reading ${variant} from the object store failed`, err);
+			error(503, 'The file store could not be reached; try again.');
+		});
+	if (!stored.Body) error(503, 'The file store returned no content; try again.');
+	const raw = stored.Body.transformToWebStream();
 	const disposition = `${variant === 'thumbnail' ? 'inline' : 'attachment'}; filename*=UTF-8''${encodeURIComponent(row.fileName)}`;
-	return getSignedUrl(
-		s3(),
-		new GetObjectCommand({
-			Bucket: bucket(),
-			Key: key,
-			ResponseContentDisposition: disposition,
-			ResponseContentType:
-				variant === 'thumbnail' ? 'image/webp' : (row.contentType ?? 'application/octet-stream')
-		}),
-		{ expiresIn: DOWNLOAD_URL_SECONDS }
+	const headers: Record<string, string> = {
+		'content-type':
+			variant === 'thumbnail' ? 'image/webp' : (row.contentType ?? 'application/octet-stream'),
+		'content-disposition': disposition,
+		'x-content-type-options': 'nosniff',
+		// Opened directly, a file runs nothing and loads nothing.
+		'content-security-policy': "default-src 'none'; sandbox",
+		'cache-control': 'private, no-store'
+	};
+	if (variant === 'thumbnail' || !row.sha256 || row.sizeBytes === null) {
+		if (stored.ContentLength !== undefined)
+			headers['content-length'] = String(stored.ContentLength);
+		return { body: raw, headers };
+	}
+	headers['content-length'] = String(row.sizeBytes);
+	const body = checkedStream(raw, { sha256: row.sha256, sizeBytes: row.sizeBytes }, () =>
+		console.error(
+			`attachment ${id}: the stored object differs from the checked file (SHA-256); download stopped`
+		)
 	);
+	return { body, headers };
 }
 
 export async function deleteAttachment(db: Db, viewer: Viewer, id: string) {
-	const row = await pendingAttachment(db, viewer, id);
+	const row = await uploadableAttachment(db, viewer, id);
 	await discard(db, row);
 }

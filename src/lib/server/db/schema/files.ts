@@ -7,7 +7,8 @@ export const attachmentStatus = pgEnum('attachment_status', ['pending', 'ready']
 
 /**
  * A file in the object store belonging to a dataset (and optionally one of its sites). It is
- * 'pending' between the presigned upload and the server's check of size, type and checksum.
+ * 'pending' from its announcement until the app has received, checked and stored its bytes;
+ * once 'ready' its content is never replaced (`objectKey` is set to the checked object then).
  */
 export const attachment = pgTable(
 	'attachment',

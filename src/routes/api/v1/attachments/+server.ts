@@ -12,7 +12,7 @@ const body = z.object({
 	sizeBytes: z.number().int('sizeBytes must be a whole number of bytes')
 });
 
-/** Announce a file: returns its id and a presigned PUT URL for the object store. */
+/** Announce a file: returns its id and the path on this origin to PUT its bytes to. */
 export const POST: RequestHandler = async (event) => {
 	requireUser(event, 'action');
 	const parsed = body.safeParse(await event.request.json().catch(() => null));
