@@ -7,6 +7,7 @@ import type { Db } from '../db/client';
 import * as schema from '../db/schema';
 import { mailTemplates, type MailContent } from '../mail-templates';
 import { ac, roles, ROLE_LABELS, isOrgRole } from '../permissions';
+import { organisationHooks } from './organisation-hooks';
 import { signInGuard } from './sign-in-guard';
 
 export interface AuthSettings {
@@ -103,6 +104,7 @@ export function createAuth(s: AuthSettings) {
 				creatorRole: 'owner',
 				invitationExpiresIn: 7 * 24 * 60 * 60,
 				cancelPendingInvitationsOnReInvite: true,
+				organizationHooks: organisationHooks,
 				schema: {
 					organization: {
 						modelName: 'organisation',
