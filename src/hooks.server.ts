@@ -1,4 +1,5 @@
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { svelteKitHandler } from 'better-auth/svelte-kit';
 import { auth } from '$lib/server/auth';
@@ -6,6 +7,8 @@ import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { closeMailer } from '$lib/server/mail';
+import { crossOriginRefusal } from '$lib/server/origin-check';
+import { withSecurityHeaders } from '$lib/server/security-headers';
 import { viewerFor } from '$lib/server/viewer';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
@@ -24,13 +27,32 @@ export const init: ServerInit = async () => {
 	});
 };
 
-export const handle: Handle = async ({ event, resolve }) => {
+/** Outermost: every response, including better-auth's and early refusals, gets the security headers. */
+const securityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	if (building) return response;
+	const c = config();
+	const storage = new URL(c.S3_ENDPOINT).origin;
+	return withSecurityHeaders(response, {
+		https: event.url.protocol === 'https:' || (c.ORIGIN ?? '').startsWith('https://'),
+		storageOrigin: storage === event.url.origin ? null : storage,
+		private: Boolean(event.locals.user) || event.url.pathname.startsWith('/api/auth/')
+	});
+};
+
+/** Before any work: state-changing requests with cookies must come from this site's pages. */
+const originCheck: Handle = async ({ event, resolve }) =>
+	crossOriginRefusal(event.request, event.url.origin) ?? resolve(event);
+
+const session: Handle = async ({ event, resolve }) => {
 	const current = building ? null : await auth().api.getSession({ headers: event.request.headers });
 	event.locals.user = current?.user ?? null;
 	event.locals.session = current?.session ?? null;
 	event.locals.viewer = await viewerFor(getDb(), event.locals.user);
 	return svelteKitHandler({ event, resolve, auth: auth(), building });
 };
+
+export const handle: Handle = sequence(securityHeaders, originCheck, session);
 
 /** Unexpected errors: log them with an id the user can quote; show nothing internal. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

@@ -7,6 +7,7 @@ import type { Db } from '../db/client';
 import * as schema from '../db/schema';
 import { mailTemplates, type MailContent } from '../mail-templates';
 import { ac, roles, ROLE_LABELS, isOrgRole } from '../permissions';
+import { cookieSettings } from './cookies';
 import { organisationHooks } from './organisation-hooks';
 import { signInGuard } from './sign-in-guard';
 
@@ -16,6 +17,7 @@ export interface AuthSettings {
 	baseURL: string;
 	/** Deliver a message; the app passes SMTP, tests may pass a recorder. */
 	send: (to: string, mail: MailContent) => Promise<void>;
+	/** Production or start profile (cookies no longer depend on it: see cookies.ts). */
 	production: boolean;
 	/** SvelteKit cookie bridge for form actions (better-auth/svelte-kit sveltekitCookies). */
 	extraPlugins?: BetterAuthPlugin[];
@@ -95,7 +97,7 @@ export function createAuth(s: AuthSettings) {
 				'/request-password-reset': { window: 300, max: 5 }
 			}
 		},
-		advanced: { useSecureCookies: s.production && s.baseURL.startsWith('https://') },
+		advanced: cookieSettings(s.baseURL),
 		hooks: signInGuard(s.db),
 		plugins: [
 			organization({
