@@ -8,6 +8,7 @@ import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { closeMailer } from '$lib/server/mail';
 import { crossOriginRefusal } from '$lib/server/origin-check';
+import { runtimeCspSources } from '$lib/server/csp-sources';
 import { withSecurityHeaders } from '$lib/server/security-headers';
 import { viewerFor } from '$lib/server/viewer';
 
@@ -31,11 +32,9 @@ export const init: ServerInit = async () => {
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
 	if (building) return response;
-	const c = config();
-	const storage = new URL(c.S3_ENDPOINT).origin;
 	return withSecurityHeaders(response, {
-		https: event.url.protocol === 'https:' || (c.ORIGIN ?? '').startsWith('https://'),
-		storageOrigin: storage === event.url.origin ? null : storage,
+		https: event.url.protocol === 'https:' || (config().ORIGIN ?? '').startsWith('https://'),
+		extraSources: runtimeCspSources(),
 		private: Boolean(event.locals.user) || event.url.pathname.startsWith('/api/auth/')
 	});
 };

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { API_CSP, addCspSources, withSecurityHeaders } from './security-headers';
+import { API_CSP, addCspSources, cspSource, withSecurityHeaders } from './security-headers';
 
-const ctx = { https: false, storageOrigin: null, private: false };
+const ctx = { https: false, extraSources: { 'connect-src': [], 'img-src': [] }, private: false };
 
 describe('withSecurityHeaders', () => {
 	it('sends HSTS and upgrade-insecure-requests only when the site is on https', () => {
@@ -49,5 +49,18 @@ describe('addCspSources', () => {
 		).toBe(
 			"default-src 'self'; connect-src 'self' http://127.0.0.1:9000; img-src 'self' data: http://127.0.0.1:9000"
 		);
+	});
+});
+
+describe('cspSource', () => {
+	it.each([
+		['http://127.0.0.1:54341', 'http://127.0.0.1:54341'],
+		['https://{s}.tiles.example/{z}/{x}/{y}.png', 'https://*.tiles.example'],
+		['https://tiles.example:8443/{z}/{x}/{y}.png?key=abc', 'https://tiles.example:8443'],
+		['https://a{s}.tiles.example/{z}/{x}/{y}.png', 'https:'],
+		['javascript:alert(1)', null],
+		[undefined, null]
+	])('%s → %s', (input, expected) => {
+		expect(cspSource(input)).toBe(expected);
 	});
 });

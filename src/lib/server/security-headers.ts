@@ -11,10 +11,10 @@ export interface SecurityContext {
 	/** The site is served over https (ORIGIN starts with https://): send HSTS. */
 	https: boolean;
 	/**
-	 * Origin of the object store the browser talks to directly (presigned upload PUTs, thumbnail
-	 * and download redirects); null when it is the app's own origin.
+	 * Sources known only at run time, added to the page CSP: the object store the browser talks to
+	 * directly (presigned upload PUTs, thumbnail and download redirects) and an optional tile server.
 	 */
-	storageOrigin: string | null;
+	extraSources: { 'connect-src': string[]; 'img-src': string[] };
 	/** The response may show unpublished data (someone is signed in, or it sets cookies). */
 	private: boolean;
 }
@@ -40,6 +40,20 @@ export function addCspSources(csp: string, sources: Record<string, string[]>): s
 		.join('; ');
 }
 
+/**
+ * The CSP source for a URL or a Leaflet tile template (`https://{s}.tiles.example/{z}/{x}/{y}.png`
+ * → `https://*.tiles.example`); null for anything else than http(s).
+ */
+export function cspSource(url: string | null | undefined): string | null {
+	const m = /^(https?):\/\/([^/?#]+)/i.exec(url ?? '');
+	if (!m) return null;
+	const [, scheme, hostPort] = m;
+	const wildcard = hostPort.replace(/^\{[^}]*\}\./, '*.');
+	// A placeholder elsewhere in the host cannot be expressed as a CSP host: allow the scheme.
+	if (/[{}\s;,']/.test(wildcard)) return `${scheme.toLowerCase()}:`;
+	return `${scheme.toLowerCase()}://${wildcard.toLowerCase()}`;
+}
+
 /** Set the headers on a copy of the response when its headers are immutable (Response.redirect, fetch). */
 function mutable(response: Response): Response {
 	try {
@@ -59,9 +73,7 @@ export function withSecurityHeaders(original: Response, ctx: SecurityContext): R
 	const h = response.headers;
 	const csp = h.get('content-security-policy');
 	if (csp) {
-		let widened = ctx.storageOrigin
-			? addCspSources(csp, { 'connect-src': [ctx.storageOrigin], 'img-src': [ctx.storageOrigin] })
-			: csp;
+		let widened = addCspSources(csp, ctx.extraSources);
 		if (ctx.https) widened += '; upgrade-insecure-requests';
 		h.set('content-security-policy', widened);
 	} else {
