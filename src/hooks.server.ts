@@ -7,6 +7,7 @@ import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { closeMailer } from '$lib/server/mail';
+import { nulRefusal } from '$lib/server/nul-guard';
 import { crossOriginRefusal } from '$lib/server/origin-check';
 import { runtimeCspSources } from '$lib/server/csp-sources';
 import { withSecurityHeaders } from '$lib/server/security-headers';
@@ -39,9 +40,12 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	});
 };
 
-/** Before any work: state-changing requests with cookies must come from this site's pages. */
-const originCheck: Handle = async ({ event, resolve }) =>
-	crossOriginRefusal(event.request, event.url.origin) ?? resolve(event);
+/**
+ * Before any work: state-changing requests with cookies must come from this site's pages, and
+ * no address may carry a NUL character.
+ */
+const requestGuards: Handle = async ({ event, resolve }) =>
+	crossOriginRefusal(event.request, event.url.origin) ?? nulRefusal(event.url) ?? resolve(event);
 
 const session: Handle = async ({ event, resolve }) => {
 	const current = building ? null : await auth().api.getSession({ headers: event.request.headers });
@@ -51,7 +55,7 @@ const session: Handle = async ({ event, resolve }) => {
 	return svelteKitHandler({ event, resolve, auth: auth(), building });
 };
 
-export const handle: Handle = sequence(securityHeaders, originCheck, session);
+export const handle: Handle = sequence(securityHeaders, requestGuards, session);
 
 /** Unexpected errors: log them with an id the user can quote; show nothing internal. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
