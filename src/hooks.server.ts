@@ -7,9 +7,9 @@ import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { closeMailer } from '$lib/server/mail';
+import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
 import { crossOriginRefusal } from '$lib/server/origin-check';
-import { runtimeCspSources } from '$lib/server/csp-sources';
 import { withSecurityHeaders } from '$lib/server/security-headers';
 import { viewerFor } from '$lib/server/viewer';
 

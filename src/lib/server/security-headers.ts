@@ -3,8 +3,8 @@
  * abuse: no framing, no MIME sniffing, a referrer that never carries paths off the site, no
  * powerful browser features, HSTS on https, and no caching of anything a signed-in person sees.
  * Page CSPs come from SvelteKit (kit.csp in svelte.config.js, with per-response nonces); this file
- * only widens them with the object store's origin, known at run time, and gives every other
- * response a CSP that allows nothing.
+ * only widens them with sources known at run time (csp-sources.ts: the object store, a tile
+ * server) and gives every other response a CSP that allows nothing.
  */
 
 export interface SecurityContext {
