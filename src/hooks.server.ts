@@ -1,4 +1,5 @@
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { svelteKitHandler } from 'better-auth/svelte-kit';
 import { auth } from '$lib/server/auth';
@@ -8,6 +9,10 @@ import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { stopJobs } from '$lib/server/jobs/boss';
 import { closeMailer, startMailWorker } from '$lib/server/mail';
+import { runtimeCspSources } from '$lib/server/csp-sources';
+import { nulRefusal } from '$lib/server/nul-guard';
+import { crossOriginRefusal } from '$lib/server/origin-check';
+import { withSecurityHeaders } from '$lib/server/security-headers';
 import { viewerFor } from '$lib/server/viewer';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
@@ -33,7 +38,25 @@ export const init: ServerInit = async () => {
 	});
 };
 
-export const handle: Handle = async ({ event, resolve }) => {
+/** Outermost: every response, including better-auth's and early refusals, gets the security headers. */
+const securityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	if (building) return response;
+	return withSecurityHeaders(response, {
+		https: event.url.protocol === 'https:' || (config().ORIGIN ?? '').startsWith('https://'),
+		extraSources: runtimeCspSources(),
+		private: Boolean(event.locals.user) || event.url.pathname.startsWith('/api/auth/')
+	});
+};
+
+/**
+ * Before any work: state-changing requests with cookies must come from this site's pages, and
+ * no address may carry a NUL character.
+ */
+const requestGuards: Handle = async ({ event, resolve }) =>
+	crossOriginRefusal(event.request, event.url.origin) ?? nulRefusal(event.url) ?? resolve(event);
+
+const session: Handle = async ({ event, resolve }) => {
 	stampClientAddress(event);
 	const current = building ? null : await auth().api.getSession({ headers: event.request.headers });
 	event.locals.user = current?.user ?? null;
@@ -41,6 +64,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 	event.locals.viewer = await viewerFor(getDb(), event.locals.user);
 	return svelteKitHandler({ event, resolve, auth: auth(), building });
 };
+
+export const handle: Handle = sequence(securityHeaders, requestGuards, session);
 
 /** Unexpected errors: log them with an id the user can quote; show nothing internal. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

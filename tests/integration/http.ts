@@ -103,14 +103,20 @@ export class Client {
 		return res;
 	}
 
-	/** Send JSON to an app API route with this client's session. */
-	async json(path: string, body?: unknown, method = 'POST'): Promise<Response> {
+	/** Send JSON to an app API route with this client's session (`headers` override, e.g. origin). */
+	async json(
+		path: string,
+		body?: unknown,
+		method = 'POST',
+		headers: Record<string, string> = {}
+	): Promise<Response> {
 		const res = await this.fetch(testEnv.appUrl() + path, {
 			method,
 			headers: {
 				'content-type': 'application/json',
 				origin: testEnv.appUrl(),
-				cookie: this.cookieHeader()
+				cookie: this.cookieHeader(),
+				...headers
 			},
 			body: body === undefined ? undefined : JSON.stringify(body),
 			redirect: 'manual'

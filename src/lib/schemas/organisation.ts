@@ -1,5 +1,7 @@
 import { z } from 'zod';
-import { ORG_ROLES } from '$lib/roles';
+// Relative, not $lib: the better-auth hooks (also loaded by scripts outside SvelteKit) use this file.
+import { ORG_ROLES } from '../roles';
+import { safeHttpUrl } from '../safe-url';
 
 const optionalText = (max: number) =>
 	z
@@ -8,6 +10,16 @@ const optionalText = (max: number) =>
 		.max(max, `Use at most ${max} characters.`)
 		.transform((v) => (v === '' ? undefined : v))
 		.optional();
+
+/**
+ * An organisation's website: empty, or an http(s) address. The form and the better-auth
+ * organisation hooks (which guard its own /api/auth/organization/* endpoints) both use this one rule.
+ */
+export const websiteSchema = z
+	.string()
+	.trim()
+	.max(300, 'Use at most 300 characters.')
+	.refine((v) => v === '' || safeHttpUrl(v) !== null, 'Enter a web address starting with https://');
 
 export const organisationSchema = z.object({
 	name: z.string().trim().min(3, 'Enter the organisation’s name (at least 3 characters).').max(120),
@@ -20,15 +32,7 @@ export const organisationSchema = z.object({
 			'Use 3–48 lower-case letters, digits and hyphens.'
 		),
 	country: optionalText(80),
-	website: z
-		.string()
-		.trim()
-		.transform((v) => (v === '' ? undefined : v))
-		.optional()
-		.refine(
-			(v) => v === undefined || /^https?:\/\/\S+\.\S+/.test(v),
-			'Enter a web address starting with https://'
-		),
+	website: websiteSchema.transform((v) => (v === '' ? undefined : v)).optional(),
 	description: optionalText(2000)
 });
 

@@ -63,3 +63,20 @@ export async function checkHealth(version: string): Promise<HealthReport> {
 		services: { database, objectStore, mail }
 	};
 }
+
+/**
+ * What anyone may learn from /api/health: up or down and how fast, per service. Versions, bucket
+ * names and error messages (hosts, ports) help an attacker pick exploits; only platform
+ * administrators see them.
+ */
+export function publicHealth(report: HealthReport): HealthReport {
+	const bare = ({ status, latencyMs }: ServiceStatus): ServiceStatus => ({ status, latencyMs });
+	return {
+		...report,
+		services: {
+			database: bare(report.services.database),
+			objectStore: bare(report.services.objectStore),
+			mail: bare(report.services.mail)
+		}
+	};
+}

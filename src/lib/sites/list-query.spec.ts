@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseSiteListQuery, withQuery } from './list-query';
+import { MAX_PAGE, parseSiteListQuery, withQuery } from './list-query';
 
 // Thermalith's own URL conventions (no external source).
 describe('sites table query', () => {
@@ -22,5 +22,25 @@ describe('sites table query', () => {
 		const q = parseSiteListQuery(new URLSearchParams('sort=password;drop&dir=sideways&page=-2'));
 		expect(q).toMatchObject({ sort: 'code', dir: 'asc', page: 1, quality: null });
 		expect(withQuery(q, {})).toBe('?');
+	});
+});
+
+// Values that reached PostgreSQL as they were and answered 500 (NUL in text, OFFSET beyond bigint).
+describe('sites table query: hostile values', () => {
+	it('keeps page a small positive integer', () => {
+		for (const page of ['1e300', '9007199254740993', '1000001', '1.5', 'NaN', 'Infinity']) {
+			expect(parseSiteListQuery(new URLSearchParams({ page })).page, page).toBe(1);
+		}
+		expect(parseSiteListQuery(new URLSearchParams({ page: String(MAX_PAGE) })).page).toBe(MAX_PAGE);
+	});
+
+	it('drops control characters from the search and unknown filter values', () => {
+		const q = parseSiteListQuery(
+			new URLSearchParams({ q: 'KGS\u0000-0\t1', quality: 'x\u0000', method: "bullard'--" })
+		);
+		expect(q).toMatchObject({ q: 'KGS-01', quality: null, method: null });
+		expect(parseSiteListQuery(new URLSearchParams({ method: 'marine_probe' })).method).toBe(
+			'marine_probe'
+		);
 	});
 });

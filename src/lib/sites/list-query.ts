@@ -2,6 +2,9 @@
  * Parse and normalise the sites-table query (?sort=&dir=&q=&quality=&method=&page=) so pages and
  * the API accept the same parameters; unknown values fall back to defaults instead of failing.
  */
+import { HEAT_FLOW_METHODS } from './methods';
+import { QUALITY_CLASSES } from './quality';
+
 export const SITE_SORT_COLUMNS = [
 	'code',
 	'name',
@@ -22,18 +25,28 @@ export interface SiteListQuery {
 	pageSize: number;
 }
 
+/**
+ * Far beyond any dataset, small enough that (page - 1) * pageSize stays an exact integer that
+ * PostgreSQL takes as OFFSET (`page=1e300` is an integer to JavaScript, not to bigint).
+ */
+export const MAX_PAGE = 1_000_000;
+
+// PostgreSQL text cannot hold NUL, and no search needs control characters.
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
+const CONTROL = /[\u0000-\u001f\u007f]/g;
+
+const oneOf = <T extends string>(value: string | null, allowed: readonly T[]): T | null =>
+	(allowed as readonly string[]).includes(value ?? '') ? (value as T) : null;
+
 export function parseSiteListQuery(params: URLSearchParams, pageSize = 50): SiteListQuery {
-	const sort = params.get('sort');
 	const page = Number(params.get('page'));
 	return {
-		sort: (SITE_SORT_COLUMNS as readonly string[]).includes(sort ?? '')
-			? (sort as SiteSortColumn)
-			: 'code',
+		sort: oneOf(params.get('sort'), SITE_SORT_COLUMNS) ?? 'code',
 		dir: params.get('dir') === 'desc' ? 'desc' : 'asc',
-		q: (params.get('q') ?? '').trim().slice(0, 100),
-		quality: params.get('quality') || null,
-		method: params.get('method') || null,
-		page: Number.isInteger(page) && page > 0 ? page : 1,
+		q: (params.get('q') ?? '').replace(CONTROL, '').trim().slice(0, 100),
+		quality: oneOf(params.get('quality'), QUALITY_CLASSES),
+		method: oneOf(params.get('method'), HEAT_FLOW_METHODS),
+		page: Number.isSafeInteger(page) && page > 0 && page <= MAX_PAGE ? page : 1,
 		pageSize
 	};
 }

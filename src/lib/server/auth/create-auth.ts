@@ -9,6 +9,8 @@ import { mailTemplates, type MailContent } from '../mail-templates';
 import { ac, roles, ROLE_LABELS, isOrgRole } from '../permissions';
 import { and, eq, like } from 'drizzle-orm';
 import { CLIENT_ADDRESS_HEADER } from './client-address';
+import { cookieSettings } from './cookies';
+import { organisationHooks } from './organisation-hooks';
 import { betterAuthRateRules } from './rate-rules';
 import { signInGuard } from './sign-in-guard';
 
@@ -18,6 +20,7 @@ export interface AuthSettings {
 	baseURL: string;
 	/** Deliver a message; the app passes SMTP, tests may pass a recorder. */
 	send: (to: string, mail: MailContent) => Promise<void>;
+	/** Production or start profile (cookies no longer depend on it: see cookies.ts). */
 	production: boolean;
 	/** SvelteKit cookie bridge for form actions (better-auth/svelte-kit sveltekitCookies). */
 	extraPlugins?: BetterAuthPlugin[];
@@ -119,7 +122,7 @@ export function createAuth(s: AuthSettings) {
 			customRules: betterAuthRateRules
 		},
 		advanced: {
-			useSecureCookies: s.production && s.baseURL.startsWith('https://'),
+			...cookieSettings(s.baseURL),
 			// The client's address as the app saw the connection, never X-Forwarded-For as sent.
 			ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
 			// better-auth skips its origin check when NODE_ENV is "test"; the tested build must not.
@@ -140,6 +143,7 @@ export function createAuth(s: AuthSettings) {
 				creatorRole: 'owner',
 				invitationExpiresIn: 7 * 24 * 60 * 60,
 				cancelPendingInvitationsOnReInvite: true,
+				organizationHooks: organisationHooks,
 				schema: {
 					organization: {
 						modelName: 'organisation',

@@ -19,6 +19,7 @@ const MESSAGES: Record<string, string> = {
 		'The organisation needs at least one owner. Make another member owner first.',
 	USER_IS_ALREADY_A_MEMBER_OF_THIS_ORGANIZATION: 'That person is a member already.',
 	USER_IS_ALREADY_INVITED_TO_THIS_ORGANIZATION: 'That address has a pending invitation already.',
+	INVALID_WEB_ADDRESS: 'Enter a web address starting with https://',
 	BANNED_USER: 'This account is suspended. Contact the platform administrators.'
 };
 

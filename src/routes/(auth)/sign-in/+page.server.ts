@@ -5,12 +5,13 @@ import { limitAuthForm } from '$lib/server/auth/form-rate-limit';
 import { getDb } from '$lib/server/db';
 import { parseForm } from '$lib/schemas/form';
 import { signInSchema } from '$lib/schemas/account';
-import { safeNext } from '$lib/server/safe-next';
+import { safeNext } from '$lib/safe-next';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = ({ locals, url }) => {
 	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));
-	return { reset: url.searchParams.has('reset'), next: url.searchParams.get('next') ?? '' };
+	// The form carries only an address that passed the rule, never the raw parameter.
+	return { reset: url.searchParams.has('reset'), next: safeNext(url.searchParams.get('next'), '') };
 };
 
 export const actions: Actions = {

@@ -1,0 +1,33 @@
+import { APIError } from 'better-auth/api';
+import { websiteSchema } from '../../schemas/organisation';
+
+type OrganisationInput = { website?: unknown; logo?: unknown };
+
+/**
+ * better-auth's own /api/auth/organization/create and /update accept any string for additional
+ * fields; these hooks apply the product's website rule to every path that creates or changes an
+ * organisation (form actions call the same endpoints), so a `javascript:` address is never stored.
+ * `logo` is an address too (better-auth's built-in field): it gets the same rule.
+ */
+function checkAddresses(org: OrganisationInput) {
+	for (const field of ['website', 'logo'] as const) {
+		const value = org[field];
+		if (value === undefined || value === null) continue;
+		const parsed = websiteSchema.safeParse(value);
+		if (!parsed.success) {
+			throw new APIError('BAD_REQUEST', {
+				code: 'INVALID_WEB_ADDRESS',
+				message: `${field}: ${parsed.error.issues[0]?.message ?? 'not a web address'}`
+			});
+		}
+	}
+}
+
+export const organisationHooks = {
+	beforeCreateOrganization: async ({ organization }: { organization: OrganisationInput }) => {
+		checkAddresses(organization);
+	},
+	beforeUpdateOrganization: async ({ organization }: { organization: OrganisationInput }) => {
+		checkAddresses(organization);
+	}
+};
