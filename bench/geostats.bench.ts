@@ -14,17 +14,17 @@ import {
 	crossValidate,
 	fitVariogram,
 	inverseDistanceGrid,
-	mulberry32,
 	ordinaryKrigingGrid,
 	type GridSpec,
 	type Sample,
 	type Variogram
 } from '../src/lib/geostats/index';
+import { createRandom } from '../src/lib/foundation/random';
 
 const N = 5000;
 const SIDE_M = 100_000;
 const grid: GridSpec = { x0: 0, y0: 0, dx: SIDE_M / 256, dy: SIDE_M / 256, nx: 256, ny: 256 };
-const rnd = mulberry32(2024);
+const rnd = createRandom(2024).uniform;
 const samples: Sample[] = Array.from({ length: N }, () => {
 	const x = rnd() * SIDE_M;
 	const y = rnd() * SIDE_M;

@@ -4,7 +4,9 @@
  * projected metres; see docs/geostats.md for the grid and variogram conventions.
  */
 export type { Sample, GridSpec, VariogramModel, Variogram, VariogramPoint } from './types';
-export { GeostatsInputError, SingularSystemError } from './errors';
+// InputError is the one error type of all pure modules; re-exported for the geostatistics API's callers.
+export { InputError } from '../foundation/errors';
+export { SingularSystemError } from './errors';
 export { MAX_GRID_CELLS, cellCentreX, cellCentreY, cellIndex, gridFromExtent } from './grid';
 export { inverseDistanceGrid, type IdwOptions } from './idw';
 export { semivariance, sill, structure } from './variogram';
@@ -27,4 +29,4 @@ export {
 	type ContourCollection,
 	type ContourProperties
 } from './contours';
-export { mulberry32, normalGenerator, simulateGaussianField } from './random';
+export { simulateGaussianField } from './random';

@@ -3,13 +3,7 @@
 
 export { defaultCrustForSite, SITE_MODEL_DEFAULTS, MODEL_ASSUMPTIONS } from './siteModel';
 export type { GeothermSite, SiteModel, SiteModelOptions, HeatProductionProfile } from './siteModel';
-export {
-	computeSiteGeotherm,
-	POWER_ISOTHERM_C,
-	DEFAULT_SAMPLES,
-	DEFAULT_SEED,
-	DEFAULT_DEPTH_STEP_M
-} from './siteGeotherm';
+export { computeSiteGeotherm, POWER_ISOTHERM_C } from './siteGeotherm';
 export type { SiteGeotherm, SiteGeothermOptions, IsothermResult } from './siteGeotherm';
 export { linearScale, niceStep, niceCeil, ticks } from './scale';
 export type { LinearScale } from './scale';

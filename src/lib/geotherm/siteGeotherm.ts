@@ -2,9 +2,15 @@
 // the seeded Monte Carlo band, isotherm depths, Moho temperature, reduced heat flow and warnings.
 // Sized for instant browser plots: 2,000 samples on a 250 m grid to 35 km take a few milliseconds.
 
+import { InputError } from '$lib/foundation/errors';
+import {
+	SITE_CHART_DEPTH_STEP_M,
+	SITE_CHART_SAMPLES,
+	SITE_CHART_SEED
+} from '$lib/foundation/limits';
+import { mToKm } from '$lib/geo/units';
 import {
 	BRITTLE_DUCTILE_QUARTZ_C,
-	ThermalInputError,
 	heatFlowSplit,
 	isothermDepthM,
 	monteCarloGeotherm,
@@ -16,10 +22,6 @@ import { defaultCrustForSite, type GeothermSite, type SiteModelOptions } from '.
 
 /** Isotherm for electricity generation with binary plants, °C (common practice, no source). */
 export const POWER_ISOTHERM_C = 150;
-
-export const DEFAULT_SAMPLES = 2000;
-export const DEFAULT_SEED = 1;
-export const DEFAULT_DEPTH_STEP_M = 250;
 
 export interface SiteGeothermOptions extends SiteModelOptions {
 	/** Isotherms beyond 150 and 300 °C (user-chosen). */
@@ -79,24 +81,24 @@ export function computeSiteGeotherm(
 	const extra = options.extraIsothermsC ?? [];
 	extra.forEach((t, i) => {
 		if (typeof t !== 'number' || !Number.isFinite(t)) {
-			throw new ThermalInputError(`extraIsothermsC[${i}]`, t, 'must be a finite temperature');
+			throw new InputError(`extraIsothermsC[${i}]`, t, 'must be a finite temperature');
 		}
 	});
 	// Fixed isotherms first, then the user's, without duplicates (the chart labels by temperature).
 	const isothermsC = [...new Set([POWER_ISOTHERM_C, BRITTLE_DUCTILE_QUARTZ_C, ...extra])];
-	const input = { ...model.input, depthStepM: options.depthStepM ?? DEFAULT_DEPTH_STEP_M };
+	const input = { ...model.input, depthStepM: options.depthStepM ?? SITE_CHART_DEPTH_STEP_M };
 	const profile = solveGeotherm(input);
 	const band = monteCarloGeotherm({
 		model: input,
 		heatFlowSigmaMWm2: model.heatFlowSigmaMWm2,
 		layers: model.layerUncertainty,
-		samples: options.samples ?? DEFAULT_SAMPLES,
-		seed: options.seed ?? DEFAULT_SEED,
+		samples: options.samples ?? SITE_CHART_SAMPLES,
+		seed: options.seed ?? SITE_CHART_SEED,
 		isothermsC
 	});
 
 	const warnings = [...model.warnings, ...(profile.warnings ?? [])];
-	const mohoKm = (model.mohoDepthM / 1000).toFixed(1);
+	const mohoKm = mToKm(model.mohoDepthM).toFixed(1);
 	const isotherms = band.isotherms.map((iso): IsothermResult => {
 		const t = iso.temperatureC;
 		const deterministicM = isothermDepthM(profile, t);

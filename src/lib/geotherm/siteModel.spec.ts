@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError } from '$lib/thermal';
+import { InputError } from '$lib/thermal';
 import { defaultCrustForSite, SITE_MODEL_DEFAULTS, type GeothermSite } from './siteModel';
 
 // Invented example site (not from any data set).
@@ -14,14 +14,14 @@ const measured: GeothermSite = {
 };
 const bare: GeothermSite = { heatFlowMWm2: 60 };
 
-function caught(fn: () => unknown): ThermalInputError {
+function caught(fn: () => unknown): InputError {
 	try {
 		fn();
 	} catch (e) {
-		expect(e).toBeInstanceOf(ThermalInputError);
-		return e as ThermalInputError;
+		expect(e).toBeInstanceOf(InputError);
+		return e as InputError;
 	}
-	return expect.fail('expected a ThermalInputError');
+	return expect.fail('expected a InputError');
 }
 
 describe('defaultCrustForSite', () => {
@@ -94,7 +94,7 @@ describe('defaultCrustForSite', () => {
 		).toEqual([15_000, 10_000, 20_000]);
 	});
 
-	it('throws ThermalInputError naming the field for bad values (brief)', () => {
+	it('throws InputError naming the field for bad values (brief)', () => {
 		expect(caught(() => defaultCrustForSite(bare, { mohoDepthKm: 0 })).field).toBe('mohoDepthKm');
 		expect(caught(() => defaultCrustForSite(bare, { mohoDepthKm: NaN })).message).toContain(
 			'finite'

@@ -3,8 +3,11 @@
 // site does not give is an assumption; each is listed in words so the UI can show it beside the plot.
 // Pure TypeScript: no SvelteKit, DB, Node or DOM imports (runs in the browser for instant plots).
 
-import { ThermalInputError, type CrustLayer, type GeothermInput } from '$lib/thermal';
-import type { LayerUncertainty } from '$lib/thermal';
+import { InputError } from '$lib/foundation/errors';
+import { MAX_MOHO_DEPTH_KM } from '$lib/foundation/limits';
+import { requireFinite, requireNonNegative, requirePositive } from '$lib/foundation/validate';
+import { kmToM } from '$lib/geo/units';
+import type { CrustLayer, GeothermInput, LayerUncertainty } from '$lib/thermal';
 
 /** The site values the geotherm needs (mW/m², W/m/K, µW/m³, °C, m); null = not measured. */
 export interface GeothermSite {
@@ -59,9 +62,6 @@ export const SITE_MODEL_DEFAULTS = {
 	relativeSigma: 0.1
 } as const;
 
-/** Deepest Moho accepted (km): thickest continental crust is well below this (common practice, from memory). */
-export const MAX_MOHO_DEPTH_KM = 100;
-
 export interface SiteModel {
 	input: GeothermInput;
 	heatFlowSigmaMWm2: number;
@@ -83,41 +83,31 @@ export const MODEL_ASSUMPTIONS = [
 	'Assumed crustal structure: a three-layer continental crust, not a local model.'
 ];
 
-function requireNumber(field: string, value: number, requirement: 'positive' | 'finite'): void {
-	if (typeof value !== 'number' || !Number.isFinite(value)) {
-		throw new ThermalInputError(field, value, 'must be a finite number');
-	}
-	if (requirement === 'positive' && !(value > 0)) {
-		throw new ThermalInputError(field, value, 'must be > 0');
-	}
-}
-
 // Up to `digits` decimals without trailing zeros: 2 → "2", 2.5 → "2.5", 2.567 → "2.57" (digits 2).
 const fmt = (v: number, digits = 1) => String(Number(v.toFixed(digits)));
 
-/** Builds the default three-layer crust for a site; throws ThermalInputError on bad values. */
+/** Builds the default three-layer crust for a site; throws InputError on bad values. */
 export function defaultCrustForSite(site: GeothermSite, options: SiteModelOptions = {}): SiteModel {
 	const D = SITE_MODEL_DEFAULTS;
 	const assumptions: string[] = [...MODEL_ASSUMPTIONS];
 	const warnings: string[] = [];
 	const rel = options.defaultRelativeSigma ?? D.relativeSigma;
-	requireNumber('defaultRelativeSigma', rel, 'finite');
-	if (rel < 0) throw new ThermalInputError('defaultRelativeSigma', rel, 'must be >= 0');
+	requireNonNegative('defaultRelativeSigma', rel);
 
 	if (site.heatFlowMWm2 == null) {
-		throw new ThermalInputError('heatFlowMWm2', null, 'must be measured to draw a geotherm');
+		throw new InputError('heatFlowMWm2', null, 'must be measured to draw a geotherm');
 	}
-	requireNumber('heatFlowMWm2', site.heatFlowMWm2, 'positive');
+	requirePositive('heatFlowMWm2', site.heatFlowMWm2);
 	const q0 = site.heatFlowMWm2;
 
 	const mohoKm = options.mohoDepthKm ?? D.mohoDepthKm;
-	requireNumber('mohoDepthKm', mohoKm, 'positive');
+	requirePositive('mohoDepthKm', mohoKm);
 	// A crustal model; the cap also keeps a typo (35000 for 35) from freezing the browser.
 	if (mohoKm > MAX_MOHO_DEPTH_KM) {
-		throw new ThermalInputError('mohoDepthKm', mohoKm, `must be at most ${MAX_MOHO_DEPTH_KM} km`);
+		throw new InputError('mohoDepthKm', mohoKm, `must be at most ${MAX_MOHO_DEPTH_KM} km`);
 	}
 	const decayKm = options.heatProductionDecayKm ?? D.heatProductionDecayKm;
-	requireNumber('heatProductionDecayKm', decayKm, 'positive');
+	requirePositive('heatProductionDecayKm', decayKm);
 
 	// Surface temperature: option, then site, then 10 °C.
 	let t0: number = D.surfaceTemperatureC;
@@ -132,7 +122,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			`Surface temperature ${D.surfaceTemperatureC} °C: the site gives none; a common default for mid-latitude land sites.`
 		);
 	}
-	requireNumber('surfaceTemperatureC', t0, 'finite');
+	requireFinite('surfaceTemperatureC', t0);
 	if (site.waterDepthM != null && site.waterDepthM > 0) {
 		assumptions.push(
 			`Marine site: depths are below the seafloor (water depth ${fmt(site.waterDepthM, 0)} m); the surface temperature is the bottom-water temperature.`
@@ -186,7 +176,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			baseKm: D.upperCrustBaseKm,
 			k: k0,
 			a: a0,
-			decay: profile === 'exponential' ? decayKm * 1000 : undefined,
+			decay: profile === 'exponential' ? kmToM(decayKm) : undefined,
 			b: undefined as number | undefined
 		},
 		{
@@ -211,7 +201,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 
 	const layers: CrustLayer[] = spec.map((l) => {
 		const layer: CrustLayer = {
-			thicknessM: (Math.min(l.baseKm, mohoKm) - l.topKm) * 1000,
+			thicknessM: kmToM(Math.min(l.baseKm, mohoKm) - l.topKm),
 			conductivityWmK: l.k,
 			heatProductionUWm3: l.a
 		};
@@ -261,7 +251,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 		heatFlowSigmaMWm2: sigmaQ,
 		layerUncertainty,
 		layerNames,
-		mohoDepthM: mohoKm * 1000,
+		mohoDepthM: kmToM(mohoKm),
 		assumptions,
 		warnings
 	};

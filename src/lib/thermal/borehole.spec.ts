@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { bullardPlot, heatFlowFromLog, temperatureGradient } from './borehole';
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import type { ConductivityInterval } from './intervals';
 import { linearFit } from './regression';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 describe('least-squares line with standard errors (common practice, no source)', () => {
 	it('matches a hand computation', () => {
@@ -139,9 +139,9 @@ describe('bad logs', () => {
 			'conductivity[1].conductivityWmK'
 		],
 		['unknown method', { ...base, method: 'magic' as 'bullard' }, 'method']
-	])('throws a ThermalInputError: %s', (_, input, field) => {
+	])('throws a InputError: %s', (_, input, field) => {
 		const e = thrown(() => heatFlowFromLog(input));
-		expect(e).toBeInstanceOf(ThermalInputError);
+		expect(e).toBeInstanceOf(InputError);
 		expect(e.field).toBe(field);
 		expect(e.message).toContain(field);
 	});

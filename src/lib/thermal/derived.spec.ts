@@ -11,7 +11,7 @@ import {
 } from './derived';
 import { solveGeotherm } from './geotherm';
 import type { GeothermProfile } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 // A tiny hand-made profile (not from the solver) for interpolation and crossing rules.
 const handMade: GeothermProfile = {

@@ -1,10 +1,11 @@
 // Quantities read off a sampled geotherm. Between samples the profile is taken as linear, which is
 // what a chart shows; refine depthStepM when that matters.
 
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { linearFit } from './regression';
 import type { GeothermProfile } from './types';
-import { requireFinite } from './validate';
+import { requireFinite } from '../foundation/validate';
+import { kPerKmToKPerM, mWm2PerUWm3ToM } from '../geo/units';
 
 /** Brittle–ductile transition in quartz-rich crust, °C (common practice, no source). */
 export const BRITTLE_DUCTILE_QUARTZ_C = 300;
@@ -21,11 +22,7 @@ function bracket(profile: GeothermProfile, depthM: number): number {
 	const d = profile.depthM;
 	const last = d.length - 1;
 	if (!(depthM >= d[0] && depthM <= d[last])) {
-		throw new ThermalInputError(
-			'depthM',
-			depthM,
-			`must be within the profile, ${d[0]}…${d[last]} m`
-		);
+		throw new InputError('depthM', depthM, `must be within the profile, ${d[0]}…${d[last]} m`);
 	}
 	let lo = 0;
 	let hi = last;
@@ -132,7 +129,7 @@ export function lithosphereBase(
 	options: AdiabatOptions = {}
 ): { depthM: number; temperatureC: number } | null {
 	const tp = options.potentialTemperatureC ?? DEFAULT_POTENTIAL_TEMPERATURE_C;
-	const g = (options.gradientKPerKm ?? DEFAULT_ADIABAT_GRADIENT_K_PER_KM) / 1000;
+	const g = kPerKmToKPerM(options.gradientKPerKm ?? DEFAULT_ADIABAT_GRADIENT_K_PER_KM);
 	requireFinite('potentialTemperatureC', tp);
 	requireFinite('gradientKPerKm', g);
 	const excess = profile.temperatureC.map((t, i) => t - (tp + g * profile.depthM[i]));
@@ -158,7 +155,7 @@ export function heatFlowProvinceFit(
 	sites: { heatFlowMWm2: number; heatProductionUWm3: number }[]
 ): HeatFlowProvinceFit {
 	if (!Array.isArray(sites) || sites.length < 3) {
-		throw new ThermalInputError('sites', sites?.length, 'must hold at least 3 sites');
+		throw new InputError('sites', sites?.length, 'must hold at least 3 sites');
 	}
 	const a = sites.map(
 		(s, i) => (
@@ -170,12 +167,11 @@ export function heatFlowProvinceFit(
 		(s, i) => (requireFinite(`sites[${i}].heatFlowMWm2`, s.heatFlowMWm2), s.heatFlowMWm2)
 	);
 	const fit = linearFit(a, q);
-	// mW/m² per µW/m³ = 1e-3 / 1e-6 m = 1000 m.
 	return {
 		reducedHeatFlowMWm2: fit.intercept,
 		sigmaReducedHeatFlowMWm2: fit.sigmaIntercept,
-		characteristicDepthM: fit.slope * 1000,
-		sigmaCharacteristicDepthM: fit.sigmaSlope * 1000,
+		characteristicDepthM: mWm2PerUWm3ToM(fit.slope),
+		sigmaCharacteristicDepthM: mWm2PerUWm3ToM(fit.sigmaSlope),
 		samples: fit.samples
 	};
 }

@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { solveGeotherm } from './geotherm';
 import type { CrustLayer, GeothermInput } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 const uniform10km: GeothermInput = {
 	surfaceTemperatureC: 10,
@@ -304,9 +304,9 @@ describe('bad input', () => {
 			'surfaceTemperatureC'
 		]
 	];
-	it.each(cases)('throws a ThermalInputError naming the field: %s', (_, input, field) => {
+	it.each(cases)('throws a InputError naming the field: %s', (_, input, field) => {
 		const e = thrown(() => solveGeotherm(input));
-		expect(e).toBeInstanceOf(ThermalInputError);
+		expect(e).toBeInstanceOf(InputError);
 		expect(e.field).toBe(field);
 		expect(e.message).toContain(field);
 	});

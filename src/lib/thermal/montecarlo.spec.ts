@@ -3,10 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { solveGeotherm } from './geotherm';
 import { drawTruncated } from './distributions';
 import { monteCarloGeotherm, type MonteCarloInput } from './montecarlo';
-import { createRandom } from './random';
+import { createRandom } from '../foundation/random';
 import { NORMAL_Z90, uniformTemperatureBand } from './propagation';
 import type { CrustLayer, GeothermInput } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 const uniform: GeothermInput = {
 	surfaceTemperatureC: 10,

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { solveGeotherm } from './geotherm';
 import { segmentsFromLayers, solveGeothermNumerical } from './numerical';
 import type { CrustLayer } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 // Two layers with a jump in k and A, exponential decay and k(T) in both: every closed-form case of
 // SCIENCE.md §1 at once, so the RK4 solver is checked against all of them.
@@ -101,10 +101,10 @@ describe('RK4 solver (dT/dz = q/k(T,z), dq/dz = −A(z))', () => {
 		}
 	});
 
-	it('throws ThermalInputErrors for bad input', () => {
+	it('throws InputErrors for bad input', () => {
 		const segments = segmentsFromLayers(layers);
 		const e = thrown(() => solveGeothermNumerical({ surfaceTemperatureC: 0, segments }));
-		expect(e).toBeInstanceOf(ThermalInputError);
+		expect(e).toBeInstanceOf(InputError);
 		expect(e.field).toBe('surfaceHeatFlowMWm2');
 		expect(
 			thrown(() =>

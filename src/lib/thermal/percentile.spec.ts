@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { percentilesInPlace, selectInPlace } from './percentile';
-import { expectClose } from './testing';
+import { expectClose } from '../foundation/testing';
 
 // Type-7 definition (Hyndman & Fan 1996): value at h = (n − 1) p, linear between order statistics.
 function bySorting(values: number[], p: number): number {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveGeotherm } from './geotherm';
 import { uniformTemperatureBand } from './propagation';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 const input = {
 	surfaceTemperatureC: 10,

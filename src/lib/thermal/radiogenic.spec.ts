@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { heatProductionUWm3 } from './radiogenic';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 describe('heat production from U, Th, K (Rybach 1988)', () => {
 	it('gives the SCIENCE.md worked value: ρ 2700, U 3 ppm, Th 12 ppm, K 3 % → 1.88244 µW/m³', () => {

@@ -1,4 +1,4 @@
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 
 /** Above this many samples a profile is almost certainly a unit mistake (e.g. step in km). */
 export const MAX_PROFILE_SAMPLES = 5_000_000;
@@ -34,7 +34,7 @@ function computeDepths(layerBaseDepthsM: readonly number[], depthStepM: number):
 	const baseM = layerBaseDepthsM[layerBaseDepthsM.length - 1];
 	const count = Math.floor(baseM / depthStepM + 1e-9);
 	if (count + layerBaseDepthsM.length > MAX_PROFILE_SAMPLES) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'depthStepM',
 			depthStepM,
 			`gives more than ${MAX_PROFILE_SAMPLES} samples for a ${baseM} m profile`

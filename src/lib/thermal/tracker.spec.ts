@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { percentilesInPlace } from './percentile';
-import { createRandom } from './random';
+import { createRandom } from '../foundation/random';
 import { PercentileTracker } from './tracker';
 
 const P = [0.1, 0.5, 0.9];
