@@ -84,10 +84,10 @@ describe('computeSiteGeotherm', () => {
 		expect(Math.abs((g.isotherms[0].deterministicM as number) - z150)).toBeLessThan(2); // linear between 250 m samples
 	});
 
-	it('reports Moho temperature and reduced heat flow consistent with the energy balance (Turcotte & Schubert ch. 4)', () => {
+	it('reports Moho temperature and mantle heat flow consistent with the energy balance (Turcotte & Schubert ch. 4)', () => {
 		const g = computeSiteGeotherm(uniformSite, uniform);
-		// q_r = q0 − ∫A dz = 60 − (1.0·15 + 0.4·10 + 0.2·10) = 39 mW/m².
-		expect(g.reducedHeatFlowMWm2).toBeCloseTo(39, 9);
+		// q_m = q0 − ∫A dz = 60 − (1.0·15 + 0.4·10 + 0.2·10) = 39 mW/m².
+		expect(g.mantleHeatFlowMWm2).toBeCloseTo(39, 9);
 		expect(g.mohoTemperatureC).toBeCloseTo(g.deterministicC.at(-1) as number, 12);
 		expect(g.surfaceHeatFlowMWm2).toBe(60);
 	});
@@ -104,7 +104,7 @@ describe('computeSiteGeotherm', () => {
 		// 20 mW/m² cannot carry the ~21.5 mW/m² of default crustal heat production.
 		const negative = computeSiteGeotherm({ heatFlowMWm2: 20 }, { samples: 200 });
 		expect(negative.warnings.join('\n')).toContain('heat flow turns negative at depth');
-		expect(negative.reducedHeatFlowMWm2).toBeLessThan(0);
+		expect(negative.mantleHeatFlowMWm2).toBeLessThan(0);
 	});
 
 	it('is reproducible with the same seed and differs with another (seeded generator; common practice, no source)', () => {

@@ -1,5 +1,5 @@
 // Everything a geotherm chart needs for one site, from the thermal core: the deterministic profile,
-// the seeded Monte Carlo band, isotherm depths, Moho temperature, reduced heat flow and warnings.
+// the seeded Monte Carlo band, isotherm depths, Moho temperature, mantle heat flow and warnings.
 // Sized for instant browser plots: 2,000 samples on a 250 m grid to 35 km take a few milliseconds.
 
 import { InputError } from '$lib/foundation/errors';
@@ -57,9 +57,12 @@ export interface SiteGeotherm {
 	mohoTemperatureC: number;
 	mohoTemperaturePercentilesC: PercentileTriple;
 	surfaceHeatFlowMWm2: number;
-	/** Heat flow entering the crust from below the Moho (central model). */
-	reducedHeatFlowMWm2: number;
-	reducedHeatFlowPercentilesMWm2: PercentileTriple;
+	/**
+	 * Mantle (basal) heat flow: what enters the crust from below the Moho (central model). Not the
+	 * trade's "reduced heat flow", the intercept of the heat-flow / heat-production relation.
+	 */
+	mantleHeatFlowMWm2: number;
+	mantleHeatFlowPercentilesMWm2: PercentileTriple;
 	assumptions: string[];
 	warnings: string[];
 	samples: number;
@@ -134,8 +137,8 @@ export function computeSiteGeotherm(
 			p90: band.p90C[last]
 		},
 		surfaceHeatFlowMWm2: profile.surfaceHeatFlowMWm2,
-		reducedHeatFlowMWm2: split.reducedHeatFlowMWm2,
-		reducedHeatFlowPercentilesMWm2: band.basalHeatFlowMWm2,
+		mantleHeatFlowMWm2: split.heatFlowBelowMWm2,
+		mantleHeatFlowPercentilesMWm2: band.basalHeatFlowMWm2,
 		assumptions: model.assumptions,
 		warnings,
 		samples: band.samples,

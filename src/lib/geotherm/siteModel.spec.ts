@@ -79,7 +79,8 @@ describe('defaultCrustForSite', () => {
 		const text = m.assumptions.join('\n');
 		expect(text).toContain('(entered)');
 		expect(text).toContain(', uniform;');
-		expect(text).toContain('b = 0.001 /K');
+		expect(text).toContain('b = 0.001 per °C, a typical value for crystalline rock');
+		expect(text).not.toContain('from memory');
 	});
 
 	it('cuts the layers at a shallow Moho and extends the lower crust to a deep one (brief)', () => {

@@ -75,7 +75,7 @@ export interface SiteModel {
 	warnings: string[];
 }
 
-/** The fixed model assumptions, always shown (docs/thermal.md). */
+/** The fixed model assumptions, always shown (docs/science.md, "Site geotherm"). */
 export const MODEL_ASSUMPTIONS = [
 	'Steady state: no transients (recent erosion, burial, climate change or intrusions are ignored).',
 	'One-dimensional conduction: horizontal layers, vertical heat flow only, no topography.',
@@ -119,7 +119,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 		assumptions.push(`Surface temperature ${fmt(t0)} °C (site value).`);
 	} else {
 		assumptions.push(
-			`Surface temperature ${D.surfaceTemperatureC} °C: the site gives none; a common default for mid-latitude land sites.`
+			`Surface temperature ${D.surfaceTemperatureC} °C: the site gives none; a typical value for mid-latitude land sites.`
 		);
 	}
 	requireFinite('surfaceTemperatureC', t0);
@@ -222,7 +222,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 
 	const upperBaseKm = Math.min(D.upperCrustBaseKm, mohoKm);
 	assumptions.push(
-		`Moho at ${fmt(mohoKm)} km${options.mohoDepthKm != null ? ' (entered)' : ' (default for continental crust)'}; the model ends there.`,
+		`Moho at ${fmt(mohoKm)} km${options.mohoDepthKm != null ? ' (entered)' : ' (a typical value for continental crust)'}; the model ends there.`,
 		`Upper crust 0–${fmt(upperBaseKm)} km: heat production ${fmt(a0, 2)} µW/m³ (${aSource})` +
 			(profile === 'exponential'
 				? ` at the surface, decaying exponentially with a ${fmt(decayKm)} km length scale`
@@ -231,17 +231,17 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 	);
 	if (mohoKm > D.upperCrustBaseKm) {
 		assumptions.push(
-			`Middle crust ${D.upperCrustBaseKm}–${fmt(Math.min(D.middleCrustBaseKm, mohoKm))} km: ${D.middleCrustHeatProductionUWm3} µW/m³, ${D.middleCrustConductivityWmK} W/m/K (assumed).`
+			`Middle crust ${D.upperCrustBaseKm}–${fmt(Math.min(D.middleCrustBaseKm, mohoKm))} km: ${D.middleCrustHeatProductionUWm3} µW/m³, ${D.middleCrustConductivityWmK} W/m/K (typical values).`
 		);
 	}
 	if (mohoKm > D.middleCrustBaseKm) {
 		assumptions.push(
-			`Lower crust ${D.middleCrustBaseKm}–${fmt(mohoKm)} km: ${D.lowerCrustHeatProductionUWm3} µW/m³, ${D.lowerCrustConductivityWmK} W/m/K (assumed).`
+			`Lower crust ${D.middleCrustBaseKm}–${fmt(mohoKm)} km: ${D.lowerCrustHeatProductionUWm3} µW/m³, ${D.lowerCrustConductivityWmK} W/m/K (typical values).`
 		);
 	}
 	assumptions.push(
 		b != null
-			? `Conductivity of the middle and lower crust falls with temperature, k = k0/(1 + bT), b = ${b} /K (common practice, from memory); the upper crust keeps its measured value.`
+			? `Conductivity of the middle and lower crust falls as the rock warms: k = k0/(1 + b·T) with b = ${b} per °C, a typical value for crystalline rock; the upper crust keeps its measured value.`
 			: 'Conductivity constant with temperature (it usually falls with temperature in crystalline rock, so deep temperatures may be underestimated).',
 		`Uncertainty: values without a given standard deviation get ${fmt(rel * 100)} %; layer thicknesses are fixed.`
 	);

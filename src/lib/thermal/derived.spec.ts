@@ -95,13 +95,13 @@ describe('Moho temperature and heat-flow split (Turcotte & Schubert ch. 4; Chapm
 		expectClose(mohoTemperatureC(p, 30_000), 660, { abs: 1e-9 }, 'T_Moho');
 		expect(mohoTemperatureC(p)).toBe(p.temperatureC.at(-1));
 	});
-	it('splits surface heat flow into crustal production (2·10 + 0.5·20 = 30 mW/m²) and reduced heat flow (40)', () => {
+	it('splits surface heat flow into crustal production (2·10 + 0.5·20 = 30 mW/m²) and heat flow from below (40)', () => {
 		const split = heatFlowSplit(p, 30_000);
-		expectClose(split.reducedHeatFlowMWm2, 40, { abs: 1e-9 }, 'reduced');
+		expectClose(split.heatFlowBelowMWm2, 40, { abs: 1e-9 }, 'from below');
 		expectClose(split.producedHeatFlowMWm2, 30, { abs: 1e-9 }, 'produced');
 		expectClose(split.producedFraction, 3 / 7, { abs: 1e-12 }, 'fraction');
 		expectClose(
-			heatFlowSplit(p).reducedHeatFlowMWm2,
+			heatFlowSplit(p).heatFlowBelowMWm2,
 			40,
 			{ abs: 1e-9 },
 			'at base (no production below 30 km)'

@@ -93,8 +93,12 @@ export function mohoTemperatureC(profile: GeothermProfile, mohoDepthM?: number):
 /** Surface heat flow split into the part produced above a depth and the part coming from below (mW/m²). */
 export interface HeatFlowSplit {
 	surfaceHeatFlowMWm2: number;
-	/** Heat flow entering from below the depth: the reduced (mantle) heat flow when that depth is the Moho. */
-	reducedHeatFlowMWm2: number;
+	/**
+	 * Heat flow entering from below the depth: the mantle (basal) heat flow when that depth is the
+	 * Moho. Not the "reduced heat flow" of the trade, which is the intercept of the heat-flow /
+	 * heat-production relation (heatFlowProvinceFit).
+	 */
+	heatFlowBelowMWm2: number;
 	/** Heat produced between the surface and the depth. */
 	producedHeatFlowMWm2: number;
 	/** producedHeatFlowMWm2 / surfaceHeatFlowMWm2 (NaN when the surface heat flow is 0). */
@@ -102,14 +106,14 @@ export interface HeatFlowSplit {
 	depthM: number;
 }
 
-/** Splits surface heat flow into crustal production and reduced heat flow at depthM (default the base). */
+/** Splits surface heat flow into heat produced above depthM (default the base) and heat flow from below it. */
 export function heatFlowSplit(profile: GeothermProfile, depthM?: number): HeatFlowSplit {
 	const z = depthM ?? profile.depthM[profile.depthM.length - 1];
-	const reduced = depthM == null ? profile.basalHeatFlowMWm2 : heatFlowAtDepthMWm2(profile, z);
-	const produced = profile.surfaceHeatFlowMWm2 - reduced;
+	const below = depthM == null ? profile.basalHeatFlowMWm2 : heatFlowAtDepthMWm2(profile, z);
+	const produced = profile.surfaceHeatFlowMWm2 - below;
 	return {
 		surfaceHeatFlowMWm2: profile.surfaceHeatFlowMWm2,
-		reducedHeatFlowMWm2: reduced,
+		heatFlowBelowMWm2: below,
 		producedHeatFlowMWm2: produced,
 		producedFraction:
 			profile.surfaceHeatFlowMWm2 === 0 ? NaN : produced / profile.surfaceHeatFlowMWm2,
@@ -139,6 +143,7 @@ export function lithosphereBase(
 
 /** Linear heat-flow / heat-production fit q0 = qr + D·A0 over sites in one province. */
 export interface HeatFlowProvinceFit {
+	/** The intercept qr: heat flow from below the radiogenic upper layer (the trade's "reduced heat flow"). */
 	reducedHeatFlowMWm2: number;
 	sigmaReducedHeatFlowMWm2: number;
 	characteristicDepthM: number;

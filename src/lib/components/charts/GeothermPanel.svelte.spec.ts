@@ -22,7 +22,9 @@ describe('GeothermPanel', () => {
 		);
 		expect(screen.getByTestId('isotherm-300').textContent).toContain('km');
 		expect(screen.getByTestId('moho-temperature').textContent).toContain('°C');
-		expect(screen.getByTestId('reduced-heat-flow').textContent).toContain('mW/m²');
+		expect(screen.getByTestId('mantle-heat-flow').textContent).toContain('mW/m²');
+		expect(screen.getByText(/Mantle \(basal\) heat flow/)).toBeTruthy();
+		expect(screen.queryByText(/Reduced heat flow/i)).toBeNull();
 		const assumptions = screen.getByTestId('geotherm-assumptions').textContent ?? '';
 		expect(assumptions).toContain('Steady state');
 		expect(assumptions).toContain('Surface temperature 10 °C: the site gives none');
