@@ -2,7 +2,8 @@
  * The invented demo scenario: the Korvald Basin, an imaginary sedimentary basin with a granite
  * massif on its eastern flank and a shelf sea to the west. Organisations, people, places and every
  * value are made up for demonstration; none of it is real data. Values follow the plausibility
- * ranges in SCIENCE.md §5 (continental heat flow around 65 mW/m², higher over the granite).
+ * ranges in docs/science.md#plausibility-limits (continental heat flow around 65 mW/m², higher
+ * over the granite).
  */
 import type { NewDataset, NewOrganisation, NewSite } from '../../src/lib/server/db/schema';
 import { createRandom } from '../../src/lib/foundation/random';

@@ -73,7 +73,7 @@ describe('computeSiteGeotherm', () => {
 		);
 	});
 
-	it('returns the 150 and 300 °C isotherms first, then the user one, with labels (brief)', () => {
+	it('returns the 150 and 300 °C isotherms first, then the user one, with labels', () => {
 		const g = computeSiteGeotherm(uniformSite, { ...uniform, extraIsothermsC: [200, 150] });
 		expect(g.isotherms.map((i) => i.temperatureC)).toEqual([150, 300, 200]);
 		expect(g.isotherms[0].label).toContain('power generation');
@@ -92,7 +92,7 @@ describe('computeSiteGeotherm', () => {
 		expect(g.surfaceHeatFlowMWm2).toBe(60);
 	});
 
-	it('warns when an isotherm is not reached and passes on the core warning for negative basal heat flow (brief)', () => {
+	it('warns when an isotherm is not reached and passes on the core warning for negative basal heat flow', () => {
 		const cold = computeSiteGeotherm(
 			{ heatFlowMWm2: 30, surfaceTemperatureC: 0 },
 			{ samples: 200, extraIsothermsC: [900, -5] }
@@ -117,7 +117,7 @@ describe('computeSiteGeotherm', () => {
 		expect(a.samples).toBe(2000);
 	});
 
-	it('surfaces InputError messages for bad inputs (brief)', () => {
+	it('surfaces InputError messages for bad inputs', () => {
 		expect(() => computeSiteGeotherm({ heatFlowMWm2: 60, conductivityWmK: -1 })).toThrow(
 			/layers\[0\]\.conductivityWmK must be > 0; got -1/
 		);

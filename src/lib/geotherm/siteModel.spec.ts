@@ -25,7 +25,7 @@ function caught(fn: () => unknown): InputError {
 }
 
 describe('defaultCrustForSite', () => {
-	it('uses and lists the defaults when the site gives only heat flow (brief defaults, common practice, from memory)', () => {
+	it('uses and lists the defaults when the site gives only heat flow (typical values: common practice, from memory)', () => {
 		const m = defaultCrustForSite(bare);
 		expect(m.input.surfaceTemperatureC).toBe(10);
 		expect(m.input.surfaceHeatFlowMWm2).toBe(60);
@@ -48,7 +48,7 @@ describe('defaultCrustForSite', () => {
 		expect(m.mohoDepthM).toBe(35_000);
 	});
 
-	it('takes measured site values and their sigmas for the upper crust (brief)', () => {
+	it('takes measured site values and their sigmas for the upper crust', () => {
 		const m = defaultCrustForSite(measured);
 		expect(m.input.surfaceTemperatureC).toBe(7.5);
 		expect(m.input.layers[0]).toMatchObject({ conductivityWmK: 3.1, heatProductionUWm3: 2.6 });
@@ -60,7 +60,7 @@ describe('defaultCrustForSite', () => {
 		expect(m.assumptions.join('\n')).toContain('Surface temperature 7.5 °C (site value)');
 	});
 
-	it('lets options override site values and say so (brief)', () => {
+	it('lets options override site values and say so', () => {
 		const m = defaultCrustForSite(measured, {
 			surfaceTemperatureC: 12,
 			upperCrustHeatProductionUWm3: 1.2,
@@ -83,7 +83,7 @@ describe('defaultCrustForSite', () => {
 		expect(text).not.toContain('from memory');
 	});
 
-	it('cuts the layers at a shallow Moho and extends the lower crust to a deep one (brief)', () => {
+	it('cuts the layers at a shallow Moho and extends the lower crust to a deep one', () => {
 		expect(
 			defaultCrustForSite(bare, { mohoDepthKm: 20 }).input.layers.map((l) => l.thicknessM)
 		).toEqual([15_000, 5_000]);
@@ -95,7 +95,7 @@ describe('defaultCrustForSite', () => {
 		).toEqual([15_000, 10_000, 20_000]);
 	});
 
-	it('throws InputError naming the field for bad values (brief)', () => {
+	it('throws InputError naming the field for bad values', () => {
 		expect(caught(() => defaultCrustForSite(bare, { mohoDepthKm: 0 })).field).toBe('mohoDepthKm');
 		expect(caught(() => defaultCrustForSite(bare, { mohoDepthKm: NaN })).message).toContain(
 			'finite'

@@ -1,8 +1,8 @@
-// Heat flow from a borehole temperature log (SCIENCE.md §3).
+// Heat flow from a borehole temperature log (docs/science.md#borehole-heat-flow).
 // Interval method: q = k̄ Γ, Γ the least-squares gradient, k̄ the thickness-weighted harmonic mean.
 // Bullard method: T = T0 + q R(z) with R = ∫ dz/k; q is the least-squares slope of T on R
 // (Bullard 1939, Proc. R. Soc. Lond. A 173).
-// Uncertainty (first order, SCIENCE.md §2): σq/q = √((σΓ/Γ)² + (σk̄/k̄)²), written as
+// Uncertainty (first order, Taylor 1997 ch. 3; docs/science.md#uncertainty): σq/q = √((σΓ/Γ)² + (σk̄/k̄)²), written as
 // σq = √((k̄ σΓ)² + (Γ σk̄)²) so Γ = 0 stays finite. σΓ is the slope's standard error; σk̄/k̄ = σR/R with
 // σR² = Σ (hᵢ σᵢ / kᵢ²)² over the intervals (independent). For Bullard, the slope's own standard
 // error takes the place of k̄ σΓ and the same σR/R is the conductivity term (a common shift of all R

@@ -37,7 +37,7 @@ describe('temperature and heat flow at depth (linear between samples; common pra
 		expect(thrown(() => temperatureAtDepthC(handMade, NaN)).field).toBe('depthM');
 	});
 
-	it('recovers the SCIENCE.md worked value between samples of a coarse profile only approximately', () => {
+	it('recovers the worked value of docs/science.md#steady-conduction between samples of a coarse profile only approximately', () => {
 		// Worked check (Turcotte & Schubert ch. 4): 230 °C at 10 km; with a 100 m step the chord error
 		// is A h²/(8k) = 5e-4 °C at most, so 10 km (a sample) is exact and 9950 m is 5e-4 low.
 		const p = solveGeotherm({

@@ -12,7 +12,7 @@ const uniform10km: GeothermInput = {
 };
 
 describe('closed forms', () => {
-	it('matches the SCIENCE.md worked check: 230 °C and 50 mW/m² at 10 km (Turcotte & Schubert ch. 4)', () => {
+	it('matches the worked check of docs/science.md#steady-conduction: 230 °C and 50 mW/m² at 10 km (Turcotte & Schubert ch. 4)', () => {
 		const p = solveGeotherm(uniform10km);
 		expectClose(p.temperatureC.at(-1)!, 230, { abs: 1e-9 }, 'T(10 km)');
 		expectClose(p.heatFlowMWm2.at(-1)!, 50, { abs: 1e-9 }, 'q(10 km)');
@@ -115,7 +115,7 @@ describe('closed forms', () => {
 		expectClose(p.temperatureC.at(-1)!, 822.1188, { abs: 1e-3 }, 'T(30 km)');
 	});
 
-	it("obeys Fourier's law q = k(T) dT/dz with heat production, decay and k(T) combined (SCIENCE.md §1)", () => {
+	it("obeys Fourier's law q = k(T) dT/dz with heat production, decay and k(T) combined (Turcotte & Schubert ch. 4; Carslaw & Jaeger)", () => {
 		const layer: CrustLayer = {
 			thicknessM: 40_000,
 			conductivityWmK: 2.8,
@@ -224,7 +224,7 @@ describe('warnings', () => {
 		expect(p.warnings?.some((w) => w.includes('negative'))).toBe(true);
 	});
 
-	it('flags heat flow turning negative at depth and implausibly high surface heat flow (SCIENCE.md §5)', () => {
+	it('flags heat flow turning negative at depth and implausibly high surface heat flow (common practice, no source)', () => {
 		const low = solveGeotherm({ ...uniform10km, surfaceHeatFlowMWm2: 5 });
 		expect(low.warnings?.some((w) => w.includes('negative at depth'))).toBe(true);
 		const high = solveGeotherm({ ...uniform10km, surfaceHeatFlowMWm2: 600 });

@@ -1,4 +1,4 @@
-// Steady 1-D conductive geotherm, solved layer by layer in closed form (SCIENCE.md §1):
+// Steady 1-D conductive geotherm, solved layer by layer in closed form (docs/science.md#steady-conduction):
 // each layer starts from the temperature and heat flow at its top and hands both to the next
 // (Chapman 1986). Uniform and exponentially decaying heat production (Lachenbruch 1970;
 // Turcotte & Schubert ch. 4) and k(T) = k0/(1 + bT) via the Kirchhoff transform (Carslaw & Jaeger)

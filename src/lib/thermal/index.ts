@@ -1,5 +1,6 @@
 // Public entry point of the thermal computation core: pure TypeScript, no framework, database,
-// Node or DOM imports, so it runs in the browser and on the server. See docs/thermal.md.
+// Node or DOM imports, so it runs in the browser and on the server. Methods and sources:
+// docs/science.md.
 
 // InputError is the one error type of all pure modules; re-exported for the thermal API's callers.
 export { InputError } from '../foundation/errors';

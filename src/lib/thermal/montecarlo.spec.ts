@@ -39,7 +39,7 @@ describe('Monte Carlo geotherm bands', () => {
 		});
 	});
 
-	it('agrees with first-order propagation for 1 % uncertainties (SCIENCE.md §2)', () => {
+	it('agrees with first-order propagation for 1 % uncertainties (Taylor 1997 ch. 3; docs/science.md#uncertainty)', () => {
 		const sigmas = { q: 0.6, k: 0.025, a: 0.01 };
 		const band = monteCarloGeotherm({
 			model: uniform,

@@ -6,7 +6,7 @@ import type { CrustLayer } from './types';
 import { expectClose, thrown } from '../foundation/testing';
 
 // Two layers with a jump in k and A, exponential decay and k(T) in both: every closed-form case of
-// SCIENCE.md §1 at once, so the RK4 solver is checked against all of them.
+// docs/science.md#steady-conduction at once, so the RK4 solver is checked against all of them.
 const layers: CrustLayer[] = [
 	{
 		thicknessM: 15_000,

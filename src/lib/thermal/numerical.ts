@@ -1,5 +1,5 @@
 // General steady 1-D solver for properties that vary with depth and temperature: the first-order
-// system dT/dz = q/k(T, z), dq/dz = −A(z) (SCIENCE.md §1) integrated with classical fourth-order
+// system dT/dz = q/k(T, z), dq/dz = −A(z) (docs/science.md#steady-conduction) integrated with classical fourth-order
 // Runge–Kutta. Use it when no closed form applies; solveGeotherm (closed form) is exact otherwise.
 // Properties must be smooth inside a segment: the integrator lands exactly on segment boundaries,
 // so jumps between segments do not spoil the fourth-order convergence.

@@ -9,7 +9,7 @@ import { InputError } from '../foundation/errors';
 import { kPerMToKPerKm, SECONDS_PER_YEAR } from '../geo/units';
 import { requireFinite, requireNonNegative, requirePositive } from '../foundation/validate';
 
-/** Thermal diffusivity of crustal rock, m²/s (about 1e-6: common practice, SCIENCE.md §3). */
+/** Thermal diffusivity of crustal rock, m²/s (about 1e-6: common practice, no source). */
 export const DEFAULT_DIFFUSIVITY_M2S = 1e-6;
 
 /** A surface temperature step of stepC (°C, positive = warming) that happened ageYears ago. */

@@ -1,5 +1,5 @@
 // First-order (linearised) uncertainty of the uniform single-layer geotherm
-// T(z) = T0 + q0 z/k − A z²/(2k) (Turcotte & Schubert ch. 4), with the derivatives of SCIENCE.md §2:
+// T(z) = T0 + q0 z/k − A z²/(2k) (Turcotte & Schubert ch. 4), with the derivatives in docs/science.md#uncertainty (Taylor 1997 ch. 3):
 // ∂T/∂q0 = z/k, ∂T/∂A = −z²/(2k), ∂T/∂k = −(q0 z − A z²/2)/k², inputs independent.
 // Good while relative uncertainties are small; use monteCarloGeotherm otherwise.
 

@@ -6,7 +6,7 @@ import { computeSiteGeotherm } from '$lib/geotherm';
 import GeothermChart from './GeothermChart.svelte';
 import GeothermPanel from './GeothermPanel.svelte';
 
-describe('SSR (brief: renders in SSR and in the browser)', () => {
+describe('SSR: renders without a DOM, so a page can ship the geotherm in its first HTML', () => {
 	it('renders the chart to HTML with the band, title and table', () => {
 		const geotherm = computeSiteGeotherm({ heatFlowMWm2: 70 }, { samples: 100 });
 		const { body } = render(GeothermChart, { props: { geotherm, title: 'SSR geotherm' } });

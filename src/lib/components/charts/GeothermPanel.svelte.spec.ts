@@ -14,7 +14,7 @@ const props = { site, siteName: 'Test bore 1', samples: 200 };
 const input = (label: RegExp) => screen.getByLabelText(label) as HTMLInputElement;
 
 describe('GeothermPanel', () => {
-	it('shows the chart, key numbers, assumptions and the model caution (brief)', () => {
+	it('shows the chart, key numbers, assumptions and the model caution', () => {
 		render(GeothermPanel, props);
 		expect(screen.getByRole('img')).toBeTruthy();
 		expect(screen.getByTestId('isotherm-150').textContent).toMatch(
@@ -31,7 +31,7 @@ describe('GeothermPanel', () => {
 		expect(screen.getByLabelText('Model estimate caution')).toBeTruthy();
 	});
 
-	it('shows the error for Moho depth 0 and recovers when fixed (brief)', async () => {
+	it('shows the error for Moho depth 0 and recovers when fixed', async () => {
 		render(GeothermPanel, props);
 		await fireEvent.input(input(/Moho depth/), { target: { value: '0' } });
 		expect(screen.getByRole('alert').textContent).toContain('mohoDepthKm must be > 0; got 0');
@@ -42,7 +42,7 @@ describe('GeothermPanel', () => {
 		expect(screen.getByRole('img')).toBeTruthy();
 	});
 
-	it('shows the error for a negative conductivity, from the form or the site, and recovers (brief)', async () => {
+	it('shows the error for a negative conductivity, from the form or the site, and recovers', async () => {
 		const view = render(GeothermPanel, props);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '-2' } });
 		expect(screen.getByRole('alert').textContent).toContain(
@@ -58,7 +58,7 @@ describe('GeothermPanel', () => {
 		expect(input(/conductivity \(W\/m\/K\)/).value).toBe('3');
 	});
 
-	it('updates the Moho temperature when the Moho depth changes (brief)', async () => {
+	it('updates the Moho temperature when the Moho depth changes', async () => {
 		render(GeothermPanel, props);
 		const before = screen.getByTestId('moho-temperature').textContent;
 		await fireEvent.input(input(/Moho depth/), { target: { value: '42' } });
@@ -70,7 +70,7 @@ describe('GeothermPanel', () => {
 		);
 	});
 
-	it('adds a user isotherm and rejects a non-number (brief)', async () => {
+	it('adds a user isotherm and rejects a non-number', async () => {
 		render(GeothermPanel, props);
 		await fireEvent.input(input(/Extra isotherm/), { target: { value: '200' } });
 		expect(screen.getByTestId('isotherm-200').textContent).toContain('km');
