@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { InputError, temperatureAtDepthC } from '$lib/thermal';
-import { computeSiteGeotherm } from './siteGeotherm';
-import type { GeothermSite } from './siteModel';
+import { computeSiteGeotherm } from './site-geotherm';
+import type { GeothermSite } from './site-model';
 
 // Uniform upper crust with the numbers of our own worked check (Turcotte & Schubert, Geodynamics,
 // ch. 4: T = T0 + q0 z/k − A z²/(2k)): T0 = 10 °C, q0 = 60 mW/m², k = 2.5 W/m/K, A = 1.0 µW/m³.

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { InputError } from '$lib/thermal';
-import { defaultCrustForSite, SITE_MODEL_DEFAULTS, type GeothermSite } from './siteModel';
+import { defaultCrustForSite, SITE_MODEL_DEFAULTS, type GeothermSite } from './site-model';
 
 // Invented example site (not from any data set).
 const measured: GeothermSite = {

@@ -18,7 +18,7 @@ import {
 	solveGeotherm,
 	type PercentileTriple
 } from '$lib/thermal';
-import { defaultCrustForSite, type GeothermSite, type SiteModelOptions } from './siteModel';
+import { defaultCrustForSite, type GeothermSite, type SiteModelOptions } from './site-model';
 
 /** Isotherm for electricity generation with binary plants, °C (common practice, no source). */
 export const POWER_ISOTHERM_C = 150;
