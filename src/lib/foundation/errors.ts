@@ -8,12 +8,15 @@
 export class InputError extends RangeError {
 	readonly field: string;
 	readonly value: unknown;
+	/** What the value must satisfy, e.g. "must be > 0", so a form can restate it under its own label. */
+	readonly requirement: string;
 
 	constructor(field: string, value: unknown, requirement: string) {
 		super(`${field} ${requirement}; got ${describeValue(value)}`);
 		this.name = 'InputError';
 		this.field = field;
 		this.value = value;
+		this.requirement = requirement;
 	}
 }
 

@@ -35,6 +35,7 @@ describe('shared input checks', () => {
 		expect(e.field).toBe('layers[2].thicknessM');
 		expect(e.value).toBe(-250);
 		expect(e.message).toBe('layers[2].thicknessM must be > 0; got -250');
+		expect(e.requirement).toBe('must be > 0');
 		expect(caught(() => requireFinite('q', NaN)).message).toBe(
 			'q must be a finite number; got NaN'
 		);

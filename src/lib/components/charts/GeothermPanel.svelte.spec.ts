@@ -34,7 +34,8 @@ describe('GeothermPanel', () => {
 	it('shows the error for Moho depth 0 and recovers when fixed', async () => {
 		render(GeothermPanel, props);
 		await fireEvent.input(input(/Moho depth/), { target: { value: '0' } });
-		expect(screen.getByRole('alert').textContent).toContain('mohoDepthKm must be > 0; got 0');
+		expect(screen.getByRole('alert').textContent).toContain('Moho depth (km) must be > 0; got 0');
+		expect(screen.getByRole('alert').textContent).not.toContain('mohoDepthKm');
 		expect(screen.queryByRole('img')).toBeNull();
 		expect(input(/Moho depth/).getAttribute('aria-invalid')).toBe('true');
 		await fireEvent.input(input(/Moho depth/), { target: { value: '30' } });
@@ -46,7 +47,7 @@ describe('GeothermPanel', () => {
 		const view = render(GeothermPanel, props);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '-2' } });
 		expect(screen.getByRole('alert').textContent).toContain(
-			'layers[0].conductivityWmK must be > 0; got -2'
+			'Upper-crust conductivity (W/m/K) must be > 0; got -2'
 		);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '2.9' } });
 		expect(screen.queryByRole('alert')).toBeNull();
@@ -76,7 +77,7 @@ describe('GeothermPanel', () => {
 		expect(screen.getByTestId('isotherm-200').textContent).toContain('km');
 		await fireEvent.input(input(/Extra isotherm/), { target: { value: 'warm' } });
 		expect(screen.getByRole('alert').textContent).toContain(
-			'extraIsothermsC[0] must be a finite temperature'
+			'Extra isotherm (°C) must be a finite temperature; got NaN'
 		);
 	});
 });
