@@ -2,7 +2,12 @@
 // scale / format helpers the SVG components share. Pure TypeScript.
 
 export { defaultCrustForSite, SITE_MODEL_DEFAULTS, MODEL_ASSUMPTIONS } from './site-model';
-export type { GeothermSite, SiteModel, SiteModelOptions, HeatProductionProfile } from './site-model';
+export type {
+	GeothermSite,
+	SiteModel,
+	SiteModelOptions,
+	HeatProductionProfile
+} from './site-model';
 export { computeSiteGeotherm, POWER_ISOTHERM_C } from './site-geotherm';
 export type { SiteGeotherm, SiteGeothermOptions, IsothermResult } from './site-geotherm';
 export { linearScale, niceStep, niceCeil, ticks } from './scale';
