@@ -10,7 +10,7 @@ interface GstatFixture {
 }
 const gstat = loadFixture<GstatFixture>('gstat.json');
 
-describe('empiricalVariogram lag classes [k·lag, (k+1)·lag), hM = mean pair distance', () => {
+describe('empiricalVariogram lag classes [k·lag, (k+1)·lag), hM = mean pair distance (Cressie 1993; default lags common practice, no source)', () => {
 	// Four samples on a line at x = 0, 100, 250, 400 (invented).
 	const s: Sample[] = [
 		{ x: 0, y: 0, value: 1 },

@@ -67,7 +67,7 @@ describe('fitVariogramToPoints (Cressie 1993 WLS, w = N(h)/γ(h)²)', () => {
 	});
 });
 
-describe('fitVariogram / fitBestVariogram', () => {
+describe('fitVariogram / fitBestVariogram (WLS weights N(h)/γ(h)², Cressie 1985)', () => {
 	it('fitVariogram fits the requested model with default lags', () => {
 		const v = fitVariogram(gstat.samples, { model: 'exponential' });
 		expect(v.model).toBe('exponential');

@@ -134,7 +134,7 @@ describe('inverseDistanceGrid, hand-computed (Shepard 1968: w = 1/d^p)', () => {
 	});
 });
 
-describe('inverseDistanceGrid properties', () => {
+describe('inverseDistanceGrid properties (Shepard 1968)', () => {
 	it('is exact at a sample location (cell centre on a sample)', () => {
 		const samples: Sample[] = [
 			{ x: 150, y: 250, value: 71.5 },

@@ -52,7 +52,7 @@ describe('temperature and heat flow at depth (linear between samples; common pra
 	});
 });
 
-describe('isotherms', () => {
+describe('isotherms (first crossing, linear between samples: docs/science.md#derived-quantities)', () => {
 	it('finds the first crossing, linear between samples, and null when never reached', () => {
 		expectClose(
 			isothermDepthM(handMade, 35)!,

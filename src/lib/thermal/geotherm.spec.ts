@@ -11,7 +11,7 @@ const uniform10km: GeothermInput = {
 	layers: [{ thicknessM: 10_000, conductivityWmK: 2.5, heatProductionUWm3: 1 }]
 };
 
-describe('closed forms', () => {
+describe('closed forms (Turcotte & Schubert ch. 4; Lachenbruch 1970; Carslaw & Jaeger 1959)', () => {
 	it('matches the worked check of docs/science.md#steady-conduction: 230 °C and 50 mW/m² at 10 km (Turcotte & Schubert ch. 4)', () => {
 		const p = solveGeotherm(uniform10km);
 		expectClose(p.temperatureC.at(-1)!, 230, { abs: 1e-9 }, 'T(10 km)');
@@ -213,7 +213,7 @@ describe('sampling', () => {
 	});
 });
 
-describe('warnings', () => {
+describe('warnings (plausibility limits: common practice, no source)', () => {
 	it('allows but flags a basal heat flow that makes the surface heat flow negative', () => {
 		const p = solveGeotherm({
 			...uniform10km,
@@ -363,7 +363,7 @@ function simpsonProductionWm2(layers: CrustLayer[], toM: number): number {
 	return total;
 }
 
-describe('properties over random valid models', () => {
+describe("properties over random valid models (energy balance and Fourier's law, Turcotte & Schubert ch. 4)", () => {
 	it('temperature increases with depth when A >= 0 and q(base) > 0', () => {
 		fc.assert(
 			fc.property(modelArb, (m) => {

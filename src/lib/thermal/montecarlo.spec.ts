@@ -15,7 +15,7 @@ const uniform: GeothermInput = {
 	layers: [{ thicknessM: 40_000, conductivityWmK: 2.5, heatProductionUWm3: 1 }]
 };
 
-describe('Monte Carlo geotherm bands', () => {
+describe('Monte Carlo geotherm bands (type-7 percentiles, Hyndman & Fan 1996; normal quantiles from memory)', () => {
 	it('is reproducible for a seed and changes with the seed', () => {
 		const run = (seed: number) =>
 			monteCarloGeotherm({

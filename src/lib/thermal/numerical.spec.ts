@@ -37,7 +37,7 @@ function baseError(stepM: number, basal: boolean): number {
 	return Math.abs(rk4.temperatureC.at(-1)! - exact.temperatureC.at(-1)!);
 }
 
-describe('RK4 solver (dT/dz = q/k(T,z), dq/dz = −A(z))', () => {
+describe('RK4 solver (dT/dz = q/k(T,z), dq/dz = −A(z); classical Runge–Kutta, Press et al. 2007 ch. 17)', () => {
 	it.each([false, true])(
 		'converges to the closed form at fourth order (basal condition: %s)',
 		(basal) => {
