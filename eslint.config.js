@@ -100,7 +100,7 @@ export default ts.config(
 			'src/lib/thermal/**/*.ts',
 			'src/lib/geostats/**/*.ts',
 			'src/lib/imports/**/*.ts',
-			'src/lib/geotherm/**/*.ts',
+			'src/lib/chart-data/**/*.ts',
 			'src/lib/sites/**/*.ts'
 		],
 		// Specs and their fixture loaders run in Node under Vitest and may read files.

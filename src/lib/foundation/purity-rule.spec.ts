@@ -38,7 +38,7 @@ describe('purity rule for pure modules', () => {
 				'thermal',
 				'geostats',
 				'imports',
-				'geotherm',
+				'chart-data',
 				'sites'
 			]) {
 				for (const [code, expected] of probes) {

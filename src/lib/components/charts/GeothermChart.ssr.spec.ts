@@ -2,7 +2,7 @@
 // must render without `window` so a page can ship the geotherm in its first HTML.
 import { render } from 'svelte/server';
 import { describe, expect, it } from 'vitest';
-import { computeSiteGeotherm } from '$lib/geotherm';
+import { computeSiteGeotherm } from '$lib/chart-data';
 import GeothermChart from './GeothermChart.svelte';
 import GeothermPanel from './GeothermPanel.svelte';
 

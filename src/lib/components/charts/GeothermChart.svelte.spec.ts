@@ -1,6 +1,6 @@
 import { fireEvent, render, screen } from '@testing-library/svelte';
 import { describe, expect, it } from 'vitest';
-import { computeSiteGeotherm } from '$lib/geotherm';
+import { computeSiteGeotherm } from '$lib/chart-data';
 import GeothermChart from './GeothermChart.svelte';
 
 // Invented site; 300 samples keep the component tests quick.
