@@ -40,9 +40,9 @@ describe('defaultCrustForSite', () => {
 		expect(m.layerUncertainty[2].heatProductionSigmaUWm3).toBeCloseTo(0.02, 12);
 		const text = m.assumptions.join('\n');
 		expect(text).toContain('Surface temperature 10 °C: the site gives none');
-		expect(text).toContain('10 % assumed');
-		expect(text).toContain('2 µW/m³ (default: the site gives none)');
-		expect(text).toContain('2.5 W/m/K (default: the site gives none)');
+		expect(text).toContain('10 % assumed (a typical value)');
+		expect(text).toContain('2 µW/m³ (the site gives none; a typical value)');
+		expect(text).toContain('2.5 W/m/K (the site gives none; a typical value)');
 		expect(text).toContain('Steady state');
 		expect(text).toContain('No advection');
 		expect(m.mohoDepthM).toBe(35_000);

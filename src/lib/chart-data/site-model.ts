@@ -142,7 +142,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 	if (sigmaQ == null) {
 		sigmaQ = Math.abs(q0) * rel;
 		assumptions.push(
-			`Surface heat flow ${fmt(q0)} mW/m² (site) ± ${fmt(sigmaQ)}: no uncertainty given, ${fmt(rel * 100)} % assumed.`
+			`Surface heat flow ${fmt(q0)} mW/m² (site) ± ${fmt(sigmaQ)}: no uncertainty given, ${fmt(rel * 100)} % assumed (a typical value).`
 		);
 	} else {
 		assumptions.push(`Surface heat flow ${fmt(q0)} ± ${fmt(sigmaQ)} mW/m² (site).`);
@@ -156,7 +156,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			? 'entered'
 			: site.heatProductionUWm3 != null
 				? 'site'
-				: 'default: the site gives none';
+				: 'the site gives none; a typical value';
 	const kUpper = options.upperCrustConductivityWmK ?? site.conductivityWmK ?? null;
 	const k0 = kUpper ?? D.upperCrustConductivityWmK;
 	const kSource =
@@ -164,7 +164,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			? 'entered'
 			: site.conductivityWmK != null
 				? 'site'
-				: 'default: the site gives none';
+				: 'the site gives none; a typical value';
 	const profile = options.upperCrustHeatProductionProfile ?? D.upperCrustHeatProductionProfile;
 	const b = options.temperatureDependentConductivity ? D.conductivityTempCoeffPerK : undefined;
 
@@ -243,7 +243,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 		b != null
 			? `Conductivity of the middle and lower crust falls as the rock warms: k = k0/(1 + b·T) with b = ${b} per °C, a typical value for crystalline rock; the upper crust keeps its measured value.`
 			: 'Conductivity constant with temperature (it usually falls with temperature in crystalline rock, so deep temperatures may be underestimated).',
-		`Uncertainty: values without a given standard deviation get ${fmt(rel * 100)} %; layer thicknesses are fixed.`
+		`Uncertainty: values without a given standard deviation get ${fmt(rel * 100)} % (a typical value); layer thicknesses are fixed.`
 	);
 
 	return {
