@@ -1,8 +1,8 @@
 /*
  * Thermalith geostatistics core: pure TypeScript (no DOM, Node, SvelteKit or database
  * imports), so it runs in a worker on the server or in the browser. Coordinates are
- * projected metres; the grid and variogram conventions are in DEVELOPERS.md (geostatistics
- * core) and the methods in docs/science.md#interpolation.
+ * projected metres; the grid and variogram conventions are in README.md beside this file and
+ * the methods in docs/science.md#interpolation.
  */
 export type { Sample, GridSpec, VariogramModel, Variogram, VariogramPoint } from './types';
 // InputError is the one error type of all pure modules; re-exported for the geostatistics API's callers.
