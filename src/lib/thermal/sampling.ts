@@ -1,5 +1,9 @@
 import { InputError } from '../foundation/errors';
 
+/** Two output depths closer than this (m), or than this fraction of the step, are one sample. */
+const SAME_DEPTH_M = 1e-6;
+const SAME_DEPTH_STEP_FRACTION = 1e-3;
+
 /** Above this many samples a profile is almost certainly a unit mistake (e.g. step in km). */
 export const MAX_PROFILE_SAMPLES = 5_000_000;
 
@@ -40,7 +44,7 @@ function computeDepths(layerBaseDepthsM: readonly number[], depthStepM: number):
 			`gives more than ${MAX_PROFILE_SAMPLES} samples for a ${baseM} m profile`
 		);
 	}
-	const same = Math.min(1e-6, depthStepM * 1e-3);
+	const same = Math.min(SAME_DEPTH_M, depthStepM * SAME_DEPTH_STEP_FRACTION);
 	const depths: number[] = [0];
 	let i = 1; // next multiple
 	let j = 0; // next boundary
