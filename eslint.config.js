@@ -5,6 +5,51 @@ import globals from 'globals';
 import ts from 'typescript-eslint';
 import svelteConfig from './svelte.config.js';
 
+// What pure modules must not import: each group with the reason a reader sees in the lint error.
+const PURE_MODULE_IMPORT_BANS = [
+	{
+		group: ['$app', '$app/*', '$env/*', '$service-worker', '@sveltejs/*', 'svelte', 'svelte/*'],
+		message: 'Pure modules are framework-free: keep SvelteKit and Svelte out of this folder.'
+	},
+	{
+		group: [
+			'drizzle-orm',
+			'drizzle-orm/*',
+			'postgres',
+			'$lib/server',
+			'$lib/server/*',
+			'**/server/**'
+		],
+		message: 'Pure modules never touch the database or server-only code; pass the data in.'
+	},
+	{
+		regex:
+			'^(node:.*|fs|fs/.*|path|path/.*|os|child_process|crypto|url|http|https|net|stream|stream/.*|util|buffer|worker_threads|zlib|module|process)$',
+		message: 'Pure modules run in the browser too: no Node built-ins.'
+	}
+];
+
+// Browser-only and Node-only globals a pure module must not reach for.
+const PURE_MODULE_GLOBAL_BANS = [
+	'window',
+	'document',
+	'navigator',
+	'location',
+	'localStorage',
+	'sessionStorage',
+	'fetch',
+	'XMLHttpRequest',
+	'HTMLElement',
+	'Element',
+	'requestAnimationFrame',
+	'process',
+	'Buffer',
+	'require',
+	'__dirname',
+	'__filename',
+	'global'
+].map((name) => ({ name, message: `Pure modules run in the browser and in Node: no ${name}.` }));
+
 export default ts.config(
 	{
 		ignores: [
@@ -44,6 +89,25 @@ export default ts.config(
 				parser: ts.parser,
 				svelteConfig
 			}
+		}
+	},
+	{
+		// Pure modules (science, units, upload parsing, chart view models): they run unchanged in the
+		// browser, on the server and in scripts, so they import no framework, database, Node or DOM.
+		files: [
+			'src/lib/foundation/**/*.ts',
+			'src/lib/geo/**/*.ts',
+			'src/lib/thermal/**/*.ts',
+			'src/lib/geostats/**/*.ts',
+			'src/lib/imports/**/*.ts',
+			'src/lib/chart-data/**/*.ts',
+			'src/lib/sites/**/*.ts'
+		],
+		// Specs and their fixture loaders run in Node under Vitest and may read files.
+		ignores: ['**/*.spec.ts', '**/fixtures/**'],
+		rules: {
+			'no-restricted-imports': ['error', { patterns: PURE_MODULE_IMPORT_BANS }],
+			'no-restricted-globals': ['error', ...PURE_MODULE_GLOBAL_BANS]
 		}
 	}
 );

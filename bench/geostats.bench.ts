@@ -15,12 +15,12 @@ import {
 	crossValidate,
 	fitVariogram,
 	inverseDistanceGrid,
-	mulberry32,
 	ordinaryKrigingGrid,
 	type GridSpec,
 	type Sample,
 	type Variogram
 } from '../src/lib/geostats/index';
+import { createRandom } from '../src/lib/foundation/random';
 import { dryRun, figure, size, type Peer } from './report';
 
 const N = size(5000, 200);
@@ -35,7 +35,7 @@ const grid: GridSpec = {
 	nx: CELLS,
 	ny: CELLS
 };
-const rnd = mulberry32(2024);
+const rnd = createRandom(2024).uniform;
 const samples: Sample[] = Array.from({ length: N }, () => {
 	const x = rnd() * SIDE_M;
 	const y = rnd() * SIDE_M;

@@ -2,7 +2,7 @@
  * The site panel's geotherm (2,000 Monte Carlo samples, 250 m steps to the Moho) is recomputed on
  * every input change in the browser; it should stay well under 100 ms to feel instant.
  */
-import { computeSiteGeotherm } from '../src/lib/geotherm';
+import { computeSiteGeotherm } from '../src/lib/chart-data';
 import { figure, size } from './report';
 
 const runs = size(20, 1);

@@ -2,9 +2,11 @@
  * The invented demo scenario: the Korvald Basin, an imaginary sedimentary basin with a granite
  * massif on its eastern flank and a shelf sea to the west. Organisations, people, places and every
  * value are made up for demonstration; none of it is real data. Values follow the plausibility
- * ranges in SCIENCE.md §5 (continental heat flow around 65 mW/m², higher over the granite).
+ * ranges in docs/science.md#plausibility-limits (continental heat flow around 65 mW/m², higher
+ * over the granite).
  */
 import type { NewDataset, NewOrganisation, NewSite } from '../../src/lib/server/db/schema';
+import { createRandom } from '../../src/lib/foundation/random';
 import { qualityClass, type QualityMethod } from '../../src/lib/sites/quality';
 
 export const DEMO_NOTICE = 'Invented demonstration data: not a real measurement.';
@@ -86,18 +88,6 @@ export const datasets: (NewDataset & { key: string })[] = [
 	}
 ];
 
-/** Mulberry32: a tiny seeded generator so the scenario is the same on every machine. */
-function mulberry32(seed: number) {
-	let a = seed >>> 0;
-	return () => {
-		a = (a + 0x6d2b79f5) >>> 0;
-		let t = a;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
-
 /** The invented heat-flow field: a westward rise to the shelf plus a granite high in the east. */
 function fieldMWm2(lon: number, lat: number): number {
 	const granite = 34 * Math.exp(-(((lon - 9.4) / 0.5) ** 2 + ((lat - 59.6) / 0.4) ** 2));
@@ -157,7 +147,8 @@ const SPECS: SiteSpec[] = [
 ];
 
 export function demoSites(datasetIds: Record<string, string>): NewSite[] {
-	const random = mulberry32(20261201);
+	// The project's one seeded generator, so the scenario is the same on every machine.
+	const random = createRandom(20261201).uniform;
 	const sites: NewSite[] = [];
 	for (const spec of SPECS) {
 		for (let i = 1; i <= spec.count; i++) {

@@ -49,7 +49,7 @@ describe('XLSX upload in the browser', () => {
 			.getByLabel('A spreadsheet (CSV, XLSX) or GeoJSON file of sites')
 			.setInputFiles(await writeWorkbook());
 		await page.getByText('2 rows, 6 columns (xlsx').waitFor();
-		// 1 HFU = 41.84 mW/m² (SCIENCE.md §3, exact from 1 cal = 4.184 J): the unit is read from the header.
+		// 1 HFU = 41.84 mW/m² (NIST SP 811, exact from 1 cal = 4.184 J; docs/science.md#units): the unit is read from the header.
 		await expect(page.locator('#unit-heatFlow').inputValue()).resolves.toBe('HFU');
 		await page.getByRole('button', { name: 'Check the rows' }).click();
 		await expect(page.getByTestId('error-count').textContent()).resolves.toBe('0');

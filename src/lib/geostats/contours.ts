@@ -1,8 +1,9 @@
 import { contours } from 'd3-contour';
 import type { Feature, FeatureCollection, MultiPolygon, Position } from 'geojson';
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import type { GridSpec } from './types';
-import { requireFinite, validateGrid } from './validate';
+import { requireFinite } from '../foundation/validate';
+import { validateGrid } from './validate';
 
 /** Properties of one contour band: the area where the grid value ≥ `value`. */
 export interface ContourProperties {
@@ -26,14 +27,10 @@ export function contourGrid(
 ): ContourCollection {
 	validateGrid(grid, opts?.maxCells);
 	if (values.length !== grid.nx * grid.ny) {
-		throw new GeostatsInputError(
-			'values',
-			values.length,
-			`must have nx × ny = ${grid.nx * grid.ny} cells`
-		);
+		throw new InputError('values', values.length, `must have nx × ny = ${grid.nx * grid.ny} cells`);
 	}
 	if (!Array.isArray(thresholds)) {
-		throw new GeostatsInputError('thresholds', thresholds, 'must be an array of numbers');
+		throw new InputError('thresholds', thresholds, 'must be an array of numbers');
 	}
 	thresholds.forEach((t, k) => requireFinite(`thresholds[${k}]`, t));
 	const generator = contours()

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { mergeDuplicateSamples } from './duplicates';
 
-describe('mergeDuplicateSamples', () => {
+describe('mergeDuplicateSamples (inverse-variance weighted mean, Taylor 1997 ch. 7)', () => {
 	it('inverse-variance weights co-located samples that all have sigma', () => {
 		const out = mergeDuplicateSamples([
 			{ x: 1, y: 2, value: 10, sigma: 1 },

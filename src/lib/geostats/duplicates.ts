@@ -1,9 +1,9 @@
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { validateSamples } from './validate';
 import type { Sample } from './types';
 
 /**
- * Throws a GeostatsInputError naming the second of two samples at exactly the same
+ * Throws a InputError naming the second of two samples at exactly the same
  * location when neither has a positive sigma: their kriging equations would be identical
  * (the system is singular whatever the nugget, since C(0) = sill on and off the diagonal).
  * With a sigma on either one, filtered kriging weighs them and no merge is needed.
@@ -22,7 +22,7 @@ export function assertNoExactDuplicates(samples: Sample[]): void {
 			if (!((c.sigma ?? 0) > 0) && !((b.sigma ?? 0) > 0)) {
 				const first = Math.min(order[p], order[q]);
 				const second = Math.max(order[p], order[q]);
-				throw new GeostatsInputError(
+				throw new InputError(
 					`samples[${second}]`,
 					{ x: b.x, y: b.y },
 					`is at the same location as samples[${first}] (${b.x}, ${b.y}) and neither has a sigma; ` +

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { defaultLagClasses, empiricalVariogram } from './empirical';
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { loadFixture } from './fixtures/load';
 import type { Sample } from './types';
 
@@ -10,7 +10,7 @@ interface GstatFixture {
 }
 const gstat = loadFixture<GstatFixture>('gstat.json');
 
-describe('empiricalVariogram lag classes [k·lag, (k+1)·lag), hM = mean pair distance', () => {
+describe('empiricalVariogram lag classes [k·lag, (k+1)·lag), hM = mean pair distance (Cressie 1993; default lags common practice, no source)', () => {
 	// Four samples on a line at x = 0, 100, 250, 400 (invented).
 	const s: Sample[] = [
 		{ x: 0, y: 0, value: 1 },
@@ -70,6 +70,6 @@ describe('empiricalVariogram lag classes [k·lag, (k+1)·lag), hM = mean pair di
 		);
 		expect(() =>
 			empiricalVariogram([...s, { x: 1, y: 1, value: NaN }], { lagM: 10, lags: 3 })
-		).toThrow(GeostatsInputError);
+		).toThrow(InputError);
 	});
 });

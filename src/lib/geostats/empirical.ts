@@ -1,5 +1,6 @@
-import { GeostatsInputError } from './errors';
-import { requirePositive, requirePositiveInteger, validateSamples } from './validate';
+import { InputError } from '../foundation/errors';
+import { requirePositive, requirePositiveInteger } from '../foundation/validate';
+import { validateSamples } from './validate';
 import type { Sample, VariogramPoint } from './types';
 
 /** Number of lag classes used when `lags` is omitted. */
@@ -29,7 +30,7 @@ export function defaultLagClasses(
 	}
 	const half = Math.hypot(xMax - xMin, yMax - yMin) / 2;
 	if (!(half > 0)) {
-		throw new GeostatsInputError('samples', samples, 'all lie at one location; no lags to form');
+		throw new InputError('samples', samples, 'all lie at one location; no lags to form');
 	}
 	return { lagM: half / lags, lags };
 }
@@ -47,7 +48,7 @@ export function empiricalVariogram(
 ): VariogramPoint[] {
 	validateSamples(samples, 2);
 	if (opts === null || typeof opts !== 'object') {
-		throw new GeostatsInputError('opts', opts, 'must be an object with lagM and lags');
+		throw new InputError('opts', opts, 'must be an object with lagM and lags');
 	}
 	const lagM = requirePositive('opts.lagM', opts.lagM);
 	const lags = requirePositiveInteger('opts.lags', opts.lags);

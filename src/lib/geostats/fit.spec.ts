@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { empiricalVariogram } from './empirical';
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import {
 	fitBestVariogram,
 	fitVariogram,
@@ -8,7 +8,7 @@ import {
 	rankVariogramModels,
 	wlsObjective
 } from './fit';
-import { mulberry32 } from './random';
+import { createRandom } from '../foundation/random';
 import { loadFixture } from './fixtures/load';
 import type { Sample, Variogram, VariogramPoint } from './types';
 import { semivariance } from './variogram';
@@ -55,7 +55,7 @@ describe('fitVariogramToPoints (Cressie 1993 WLS, w = N(h)/γ(h)²)', () => {
 	});
 
 	it('keeps nugget ≥ 0 and partial sill > 0 on noisy classes', () => {
-		const rnd = mulberry32(5);
+		const rnd = createRandom(5).uniform;
 		const v: Variogram = { model: 'spherical', nugget: 0, partialSill: 10, rangeM: 2000 };
 		const pts = onModel(v).map((p) => ({ ...p, gamma: p.gamma * (0.8 + 0.4 * rnd()) }));
 		for (const model of ['spherical', 'exponential', 'gaussian'] as const) {
@@ -67,7 +67,7 @@ describe('fitVariogramToPoints (Cressie 1993 WLS, w = N(h)/γ(h)²)', () => {
 	});
 });
 
-describe('fitVariogram / fitBestVariogram', () => {
+describe('fitVariogram / fitBestVariogram (WLS weights N(h)/γ(h)², Cressie 1985)', () => {
 	it('fitVariogram fits the requested model with default lags', () => {
 		const v = fitVariogram(gstat.samples, { model: 'exponential' });
 		expect(v.model).toBe('exponential');
@@ -101,9 +101,7 @@ describe('fitVariogram / fitBestVariogram', () => {
 		expect(() => fitVariogram(gstat.samples, { model: 'spherical', lagM: 1e9, lags: 2 })).toThrow(
 			expect.objectContaining({ field: 'opts.lagM' })
 		);
-		expect(() => fitVariogram(gstat.samples, { model: 'linear' as never })).toThrow(
-			GeostatsInputError
-		);
+		expect(() => fitVariogram(gstat.samples, { model: 'linear' as never })).toThrow(InputError);
 		expect(() => fitVariogram(gstat.samples.slice(0, 2), { model: 'spherical' })).toThrow(
 			expect.objectContaining({ field: 'samples' })
 		);

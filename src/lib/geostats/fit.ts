@@ -1,5 +1,5 @@
 import { defaultLagClasses, empiricalVariogram } from './empirical';
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import type { Sample, Variogram, VariogramModel, VariogramPoint } from './types';
 import { validateSamples } from './validate';
 import { structure } from './variogram';
@@ -107,7 +107,7 @@ export function fitVariogramToPoints(
 ): { variogram: Variogram; objective: number } {
 	const usable = points.filter((p) => p.pairs > 0 && p.hM > 0);
 	if (usable.length < 3) {
-		throw new GeostatsInputError(
+		throw new InputError(
 			'opts.lagM',
 			usable.length,
 			'gives fewer than 3 non-empty lag classes; choose other lagM / lags'
@@ -115,7 +115,7 @@ export function fitVariogramToPoints(
 	}
 	const gMax = Math.max(...usable.map((p) => p.gamma));
 	if (!(gMax > 0)) {
-		throw new GeostatsInputError('samples', gMax, 'have no variation in value; nothing to fit');
+		throw new InputError('samples', gMax, 'have no variation in value; nothing to fit');
 	}
 	// Lower bound on the partial sill: a pure-nugget model cannot be kriged with.
 	const cMin = 1e-6 * gMax;
@@ -267,10 +267,10 @@ export function fitVariogram(
 ): Variogram {
 	validateSamples(samples, 3);
 	if (opts === null || typeof opts !== 'object') {
-		throw new GeostatsInputError('opts', opts, 'must be an object with a model');
+		throw new InputError('opts', opts, 'must be an object with a model');
 	}
 	if (!['spherical', 'exponential', 'gaussian'].includes(opts.model)) {
-		throw new GeostatsInputError(
+		throw new InputError(
 			'opts.model',
 			opts.model,
 			"must be 'spherical', 'exponential' or 'gaussian'"
@@ -290,7 +290,7 @@ export function rankVariogramModels(
 ): { variogram: Variogram; objective: number }[] {
 	validateSamples(samples, 3);
 	const models = opts.models ?? (['spherical', 'exponential', 'gaussian'] as VariogramModel[]);
-	if (models.length === 0) throw new GeostatsInputError('opts.models', models, 'is empty');
+	if (models.length === 0) throw new InputError('opts.models', models, 'is empty');
 	const points = empiricalVariogram(samples, defaultLagClasses(samples, opts));
 	return models
 		.map((m) => fitVariogramToPoints(points, m))

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { inverseDistanceGrid } from './idw';
 import { loadFixture } from './fixtures/load';
 import type { GridSpec, Sample } from './types';
@@ -134,7 +134,7 @@ describe('inverseDistanceGrid, hand-computed (Shepard 1968: w = 1/d^p)', () => {
 	});
 });
 
-describe('inverseDistanceGrid properties', () => {
+describe('inverseDistanceGrid properties (Shepard 1968)', () => {
 	it('is exact at a sample location (cell centre on a sample)', () => {
 		const samples: Sample[] = [
 			{ x: 150, y: 250, value: 71.5 },
@@ -231,14 +231,14 @@ describe('inverseDistanceGrid input errors', () => {
 			9e6
 		]
 	];
-	it.each(cases)('%s throws GeostatsInputError naming the field', (_, call, field, value) => {
-		expect(call).toThrow(GeostatsInputError);
+	it.each(cases)('%s throws InputError naming the field', (_, call, field, value) => {
+		expect(call).toThrow(InputError);
 		try {
 			call();
 		} catch (e) {
 			expect(e).toBeInstanceOf(RangeError);
-			expect((e as GeostatsInputError).field).toBe(field);
-			expect((e as GeostatsInputError).value).toEqual(value);
+			expect((e as InputError).field).toBe(field);
+			expect((e as InputError).value).toEqual(value);
 			expect((e as Error).message).toContain(field);
 		}
 	});

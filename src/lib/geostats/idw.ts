@@ -1,7 +1,8 @@
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { NeighbourIndex } from './neighbours';
 import type { GridSpec, Sample } from './types';
-import { optionalNeighbours, requirePositive, validateGrid, validateSamples } from './validate';
+import { requirePositive } from '../foundation/validate';
+import { optionalNeighbours, validateGrid, validateSamples } from './validate';
 
 export interface IdwOptions {
 	/** Exponent p of the weights 1 / dᵖ (Shepard 1968); 2 is common practice. */
@@ -27,7 +28,7 @@ export function inverseDistanceGrid(
 ): Float64Array {
 	validateSamples(samples, 1);
 	if (opts === null || typeof opts !== 'object') {
-		throw new GeostatsInputError('opts', opts, 'must be an object with a power');
+		throw new InputError('opts', opts, 'must be an object with a power');
 	}
 	validateGrid(grid, opts.maxCells);
 	const power = requirePositive('opts.power', opts.power);

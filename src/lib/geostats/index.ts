@@ -1,10 +1,13 @@
 /*
  * Thermalith geostatistics core: pure TypeScript (no DOM, Node, SvelteKit or database
  * imports), so it runs in a worker on the server or in the browser. Coordinates are
- * projected metres; see docs/geostats.md for the grid and variogram conventions.
+ * projected metres; the grid and variogram conventions are in README.md beside this file and
+ * the methods in docs/science.md#interpolation.
  */
 export type { Sample, GridSpec, VariogramModel, Variogram, VariogramPoint } from './types';
-export { GeostatsInputError, SingularSystemError } from './errors';
+// InputError is the one error type of all pure modules; re-exported for the geostatistics API's callers.
+export { InputError } from '../foundation/errors';
+export { SingularSystemError } from './errors';
 export { MAX_GRID_CELLS, cellCentreX, cellCentreY, cellIndex, gridFromExtent } from './grid';
 export { inverseDistanceGrid, type IdwOptions } from './idw';
 export { semivariance, sill, structure } from './variogram';
@@ -27,4 +30,4 @@ export {
 	type ContourCollection,
 	type ContourProperties
 } from './contours';
-export { mulberry32, normalGenerator, simulateGaussianField } from './random';
+export { simulateGaussianField } from './random';

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { GeostatsInputError, SingularSystemError } from './errors';
+import { InputError } from '../foundation/errors';
+import { SingularSystemError } from './errors';
 import { krigePoint, ordinaryKrigingGrid } from './kriging';
 import { loadFixture } from './fixtures/load';
 import type { GridSpec, Sample, Variogram } from './types';
@@ -164,8 +165,8 @@ describe('kriging input errors and singular systems', () => {
 		try {
 			call();
 		} catch (e) {
-			expect(e).toBeInstanceOf(GeostatsInputError);
-			return (e as GeostatsInputError).field;
+			expect(e).toBeInstanceOf(InputError);
+			return (e as InputError).field;
 		}
 		return 'did not throw';
 	};

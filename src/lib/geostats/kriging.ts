@@ -1,15 +1,11 @@
 import { assertNoExactDuplicates } from './duplicates';
-import { GeostatsInputError, SingularSystemError } from './errors';
+import { InputError } from '../foundation/errors';
+import { SingularSystemError } from './errors';
 import { luFactor, luSolve } from './linalg';
 import { NeighbourIndex } from './neighbours';
 import type { GridSpec, Sample, Variogram } from './types';
-import {
-	optionalNeighbours,
-	requireFinite,
-	validateGrid,
-	validateSamples,
-	validateVariogram
-} from './validate';
+import { requireFinite } from '../foundation/validate';
+import { optionalNeighbours, validateGrid, validateSamples, validateVariogram } from './validate';
 import { covarianceFunction } from './variogram';
 
 /*
@@ -323,7 +319,7 @@ export function krigePoint(
 	const idx = new Int32Array(k);
 	const d2 = new Float64Array(k);
 	const count = index.nearest(x, y, k, Infinity, idx, d2);
-	if (count < 1) throw new GeostatsInputError('samples', samples, 'gave no neighbours');
+	if (count < 1) throw new InputError('samples', samples, 'gave no neighbours');
 	const solver = new LocalKriger(p, k);
 	const r = solver.solve(x, y, idx, d2, count);
 	return {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { cholesky, invert, luFactor, luSolve } from './linalg';
-import { mulberry32 } from './random';
+import { createRandom } from '../foundation/random';
 
 describe('LU with partial pivoting (Golub & Van Loan 2013, Alg. 3.4.1)', () => {
 	it('solves random systems, including a zero leading pivot', () => {
-		const rnd = mulberry32(3);
+		const rnd = createRandom(3).uniform;
 		for (const n of [1, 2, 5, 12, 25]) {
 			const a = Float64Array.from({ length: n * n }, () => rnd() * 2 - 1);
 			a[0] = n === 1 ? 2 : 0; // a zero first pivot forces a row swap

@@ -1,7 +1,8 @@
 import { NeighbourIndex } from './neighbours';
 import type { GridSpec, Sample } from './types';
-import { requirePositive, validateGrid, validateSamples } from './validate';
-import { GeostatsInputError } from './errors';
+import { requirePositive } from '../foundation/validate';
+import { validateGrid, validateSamples } from './validate';
+import { InputError } from '../foundation/errors';
 
 /**
  * Returns a copy of `values` in which every cell whose centre is farther than maxDistanceM
@@ -19,11 +20,7 @@ export function maskByDistance(
 	validateSamples(samples, 0);
 	const limit = requirePositive('maxDistanceM', maxDistanceM);
 	if (values.length !== grid.nx * grid.ny) {
-		throw new GeostatsInputError(
-			'values',
-			values.length,
-			`must have nx × ny = ${grid.nx * grid.ny} cells`
-		);
+		throw new InputError('values', values.length, `must have nx × ny = ${grid.nx * grid.ny} cells`);
 	}
 	const out = values.slice();
 	const index = new NeighbourIndex(

@@ -1,41 +1,10 @@
-import { GeostatsInputError } from './errors';
+// Simulated Gaussian random fields, for tests and benchmarks (the generator is the shared one).
+import { InputError } from '../foundation/errors';
+import { createRandom } from '../foundation/random';
 import { cholesky } from './linalg';
 import { covarianceFunction } from './variogram';
 import { validateVariogram } from './validate';
 import type { Sample, Variogram } from './types';
-
-/**
- * Seeded PRNG (mulberry32, a public-domain 32-bit generator; from memory) returning a
- * function of uniform numbers in [0, 1). For reproducible tests and benchmarks, not crypto.
- */
-export function mulberry32(seed: number): () => number {
-	let a = seed >>> 0;
-	return () => {
-		a = (a + 0x6d2b79f5) >>> 0;
-		let t = a;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
-
-/** Standard normal deviates by the Box–Muller transform (Box & Muller 1958). */
-export function normalGenerator(uniform: () => number): () => number {
-	let spare: number | null = null;
-	return () => {
-		if (spare !== null) {
-			const s = spare;
-			spare = null;
-			return s;
-		}
-		let u = 0;
-		while (u === 0) u = uniform();
-		const v = uniform();
-		const r = Math.sqrt(-2 * Math.log(u));
-		spare = r * Math.sin(2 * Math.PI * v);
-		return r * Math.cos(2 * Math.PI * v);
-	};
-}
 
 /**
  * Draws one realisation of a zero-mean stationary Gaussian field with variogram v at the
@@ -62,13 +31,13 @@ export function simulateGaussianField(
 		}
 	}
 	if (!cholesky(c, n)) {
-		throw new GeostatsInputError(
+		throw new InputError(
 			'points',
 			points,
 			'give a covariance matrix that is not positive definite'
 		);
 	}
-	const normal = normalGenerator(mulberry32(seed));
+	const normal = createRandom(seed).normal;
 	const e = new Float64Array(n);
 	for (let i = 0; i < n; i++) e[i] = normal();
 	const out: Sample[] = [];

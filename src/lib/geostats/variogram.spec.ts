@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { GeostatsInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import type { Variogram } from './types';
 import { covarianceFunction, semivariance, sill } from './variogram';
 
@@ -76,11 +76,11 @@ describe('semivariance input errors', () => {
 		['NaN h', sph, NaN, 'hM']
 	];
 	it.each(bad)('%s names %s', (_, v, h, field) => {
-		expect(() => semivariance(v, h)).toThrow(GeostatsInputError);
+		expect(() => semivariance(v, h)).toThrow(InputError);
 		try {
 			semivariance(v, h);
 		} catch (e) {
-			expect((e as GeostatsInputError).field).toBe(field);
+			expect((e as InputError).field).toBe(field);
 		}
 	});
 });

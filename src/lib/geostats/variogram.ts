@@ -1,5 +1,6 @@
-import { GeostatsInputError } from './errors';
-import { requireFinite, validateVariogram } from './validate';
+import { InputError } from '../foundation/errors';
+import { requireFinite } from '../foundation/validate';
+import { validateVariogram } from './validate';
 import type { Variogram, VariogramModel } from './types';
 
 /*
@@ -26,7 +27,7 @@ export function structure(model: VariogramModel, hM: number, rangeM: number): nu
 export function semivariance(v: Variogram, hM: number): number {
 	validateVariogram(v);
 	requireFinite('hM', hM);
-	if (hM < 0) throw new GeostatsInputError('hM', hM, 'must be ≥ 0');
+	if (hM < 0) throw new InputError('hM', hM, 'must be ≥ 0');
 	if (hM === 0) return 0;
 	return v.nugget + v.partialSill * structure(v.model, hM, v.rangeM);
 }

@@ -6,7 +6,7 @@ import { cellText, parseNumberCell } from './cells';
 import { parseCsv } from './csv';
 import { suggestMapping, type ColumnMapping } from './mapping';
 import { ImportFormatError, type ImportIssue } from './types';
-import { findUnit } from './units';
+import { findUnit } from '../geo/units';
 
 export interface ConductivitySamples {
 	intervals: ConductivityInterval[];

@@ -1,7 +1,7 @@
 // The product's own import fields: what an uploaded column can be mapped to, with the synonyms
 // header guessing uses and the quantity whose unit the user chooses. Names are Thermalith's own.
 
-import type { Quantity } from './units';
+import type { Quantity } from '../geo/units';
 
 export type FieldKey =
 	| 'code'

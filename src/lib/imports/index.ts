@@ -1,6 +1,7 @@
 // Public entry point of the upload library: parsing and validating uploaded tables and well logs.
 // Pure TypeScript (papaparse, exceljs, proj4, geojson-validation); runs in the browser and on the
-// server. See docs/imports.md.
+// server. Units and coordinate systems live in lib/geo and plausibility limits in
+// lib/foundation; the unit and CRS lists are re-exported here for the upload pages.
 
 export { ImportFormatError } from './types';
 export type { Cell, ParsedTable, ImportIssue, Severity } from './types';
@@ -34,12 +35,12 @@ export {
 	KPERKM_PER_DEGF_PER_100FT,
 	WMK_PER_MCAL_CM_S_K,
 	UWM3_PER_HGU
-} from './units';
-export type { Quantity, UnitDef } from './units';
-export { CRS_LIST } from './crs-list';
-export type { CrsEntry } from './crs-list';
-export { getCrs, parseEpsg, searchCrs, toWgs84 } from './crs';
-export type { Wgs84Result } from './crs';
+} from '../geo/units';
+export type { Quantity, UnitDef } from '../geo/units';
+export { CRS_LIST } from '../geo/crs-list';
+export type { CrsEntry } from '../geo/crs-list';
+export { getCrs, parseEpsg, searchCrs, toWgs84 } from '../geo/crs';
+export type { Wgs84Result } from '../geo/crs';
 export { parseAngle } from './dms';
 export type { AngleResult } from './dms';
 export {
@@ -51,7 +52,6 @@ export {
 } from './vocabulary';
 export type { HeatFlowMethod, Correction } from './vocabulary';
 export type { SiteDraft } from './site-draft';
-export * from './plausibility';
 export { prepareRowContext, validateRow } from './validate-row';
 export type { ValidateOptions, RowResult, RowContext } from './validate-row';
 export { buildPreview } from './preview';

@@ -2,7 +2,7 @@
 
 import { FIELDS, field, type FieldKey } from './fields';
 import type { ImportIssue } from './types';
-import { recogniseUnit, STORED_UNIT, UNITS, type Quantity } from './units';
+import { recogniseUnit, STORED_UNIT, UNITS, type Quantity } from '../geo/units';
 
 /** One mapped column: its index in ParsedTable.headers and, for quantities, the unit id. */
 export interface ColumnChoice {

@@ -85,12 +85,12 @@ describe('buildPreview', () => {
 		expect(p.validCount).toBe(1);
 		expect(p.canImport).toBe(false);
 	});
-	it('warns (never rejects) on implausible values, per SCIENCE.md §5 and common practice', () => {
+	it('warns (never rejects) on implausible values, per docs/science.md#plausibility-limits', () => {
 		const p = preview([
-			'W1;500000;6600000;650;30;2,5;12;260;100;900;2;interval;;1999', // q > 500 mW/m² (SCIENCE.md §5)
-			'W2;500000;6600000;-5;1;2,5;12;-2;100;900;2;interval;;1999', // q < 0 (SCIENCE.md §5)
+			'W1;500000;6600000;650;30;2,5;12;260;100;900;2;interval;;1999', // q > 500 mW/m² (docs/science.md#plausibility-limits)
+			'W2;500000;6600000;-5;1;2,5;12;-2;100;900;2;interval;;1999', // q < 0 (docs/science.md#plausibility-limits)
 			'W3;500000;6600000;60;3;7,5;12;8;100;900;2;interval;;1999', // k outside 0.5–6 W/m/K (common practice)
-			'W4;500000;6600000;60;3;2,5;12;24;100;900;12;interval;;1999', // A > 10 µW/m³ (SCIENCE.md §5 granite 2–4)
+			'W4;500000;6600000;60;3;2,5;12;24;100;900;12;interval;;1999', // A > 10 µW/m³ (granite gives about 2–4; docs/science.md#plausibility-limits)
 			'W5;500000;6600000;60;3;2,5;12;35;100;900;2;interval;;1999', // Γ vs q/k = 24 K/km: 46 % off
 			'W6;500000;6600000;60;3;2,5;12;24;100;900;2;interval;;2031'
 		]);

@@ -6,7 +6,7 @@ import { parseNumberCell, cellText } from './cells';
 import { parseCsv } from './csv';
 import { lasItem, type LasCurve, type LasFile } from './las';
 import { ImportFormatError, type Cell, type ImportIssue } from './types';
-import { findUnit, recogniseUnit, type UnitDef } from './units';
+import { findUnit, recogniseUnit, type UnitDef } from '../geo/units';
 
 export interface TemperatureLog {
 	depthM: number[];

@@ -10,7 +10,7 @@ import {
 	parseTextCell,
 	parseYearCell
 } from './cells';
-import { degreesOutsideZone, getCrs, parseEpsg, toWgs84 } from './crs';
+import { degreesOutsideZone, getCrs, parseEpsg, toWgs84 } from '../geo/crs';
 import { parseAngle } from './dms';
 import { FIELDS, field, type FieldKey } from './fields';
 import type { ColumnMapping } from './mapping';
@@ -20,10 +20,10 @@ import {
 	MAX_PLAUSIBLE_HEAT_FLOW_MWM2,
 	MAX_PLAUSIBLE_HEAT_PRODUCTION_UWM3,
 	PLAUSIBLE_CONDUCTIVITY_WMK
-} from './plausibility';
+} from '../foundation/limits';
 import type { SiteDraft } from './site-draft';
 import type { Cell, ImportIssue, ParsedTable, Severity } from './types';
-import { findUnit, type UnitDef } from './units';
+import { findUnit, type UnitDef } from '../geo/units';
 import {
 	methodSpellings,
 	parseCorrections,
@@ -36,7 +36,7 @@ export interface ValidateOptions {
 	mapping: ColumnMapping;
 	/** CRS of the coordinate columns when no per-row EPSG column is mapped; default 4326. */
 	epsg?: number;
-	/** The sites are in a volcanic area: no warning for heat flow above 500 mW/m². */
+	/** The sites are in a volcanic area: no warning for heat flow above MAX_PLAUSIBLE_HEAT_FLOW_MWM2. */
 	volcanicArea?: boolean;
 	/** Server hook: a message when a site is close to an existing one (shown as a warning), else null. */
 	nearExisting?: (site: SiteDraft) => string | null;

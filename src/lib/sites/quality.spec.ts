@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { qualityClass, type QualityInput } from './quality';
+import { qualityClass, qualityLabel, type QualityInput } from './quality';
 
 // The scheme is Thermalith's own (no external source); these cases pin its documented rules.
 const base: QualityInput = {
@@ -24,5 +24,13 @@ describe('qualityClass', () => {
 		[{ heatFlowMWm2: Number.NaN }, 'unconstrained']
 	] as const)('%o → %s', (change, expected) => {
 		expect(qualityClass({ ...base, ...change } as QualityInput)).toBe(expected);
+	});
+});
+
+describe('qualityLabel', () => {
+	it('labels stored classes and shows anything else as stored', () => {
+		expect(qualityLabel('well-constrained')).toBe('Well constrained');
+		expect(qualityLabel(null)).toBe('—');
+		expect(qualityLabel('legacy-A')).toBe('legacy-A');
 	});
 });

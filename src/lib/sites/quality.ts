@@ -3,7 +3,9 @@ import type { HeatFlowMethod } from './methods';
 /**
  * Thermalith's own quality scheme for a heat-flow determination. It ranks how well a value is
  * constrained from three things a reviewer looks at first: the relative 1-σ uncertainty, the
- * method, and how many conductivity samples stand behind it. Documented on /help/quality.
+ * method, and how many conductivity samples stand behind it. The thresholds below are the only
+ * place the rules are written down: qualityClass computes from them and the help page
+ * (QualityRules.svelte) renders them.
  */
 export const QUALITY_CLASSES = [
 	'well-constrained',
@@ -20,7 +22,41 @@ export const QUALITY_LABELS: Record<QualityClass, string> = {
 	unconstrained: 'Unconstrained'
 };
 
+/** The label of a stored class, or the raw value for anything unexpected. */
+export function qualityLabel(value: string | null | undefined): string {
+	if (value == null) return '—';
+	return QUALITY_LABELS[value as QualityClass] ?? value;
+}
+
 export type QualityMethod = HeatFlowMethod;
+
+/**
+ * Largest relative uncertainty σ/q (inclusive) of each class above 'unconstrained'; anything
+ * larger is 'unconstrained'. The scheme's own choice (no external source).
+ */
+export const MAX_RELATIVE_SIGMA = {
+	'well-constrained': 0.1,
+	constrained: 0.2,
+	indicative: 0.35
+} as const satisfies Partial<Record<QualityClass, number>>;
+
+/** Fewer conductivity samples than this lowers the class one step. */
+export const MIN_CONDUCTIVITY_SAMPLES = 5;
+
+/** Methods that measure conductivity in place, so the sample rule does not apply. */
+export const IN_SITU_CONDUCTIVITY_METHODS: readonly QualityMethod[] = ['marine_probe'];
+
+/**
+ * Best class each method can reach: bottom-hole temperatures are disturbed by drilling and an
+ * unspecified method cannot be judged, so both stop at 'indicative'.
+ */
+export const BEST_CLASS_BY_METHOD: Record<QualityMethod, QualityClass> = {
+	bullard: 'well-constrained',
+	borehole_interval: 'well-constrained',
+	marine_probe: 'well-constrained',
+	bottom_hole_temperature: 'indicative',
+	other: 'indicative'
+};
 
 export interface QualityInput {
 	heatFlowMWm2: number | null;
@@ -29,18 +65,13 @@ export interface QualityInput {
 	conductivitySamples: number | null;
 }
 
-/** Bottom-hole temperatures are disturbed by drilling; they can never rank above 'indicative'. */
-const METHOD_CEILING: Record<QualityMethod, number> = {
-	bullard: 0,
-	borehole_interval: 0,
-	marine_probe: 0,
-	bottom_hole_temperature: 2,
-	other: 2
-};
+const rankOf = (c: QualityClass) => QUALITY_CLASSES.indexOf(c);
 
 /**
- * Class from relative uncertainty (≤ 10 %, ≤ 20 %, ≤ 35 %), capped by method, and lowered one step
- * when fewer than 5 conductivity samples were measured (marine probes measure in situ and are exempt).
+ * Class from the relative uncertainty (MAX_RELATIVE_SIGMA), lowered one step when fewer than
+ * MIN_CONDUCTIVITY_SAMPLES conductivity samples were measured (in-situ methods are exempt), and
+ * capped by the method (BEST_CLASS_BY_METHOD). A missing or non-positive value is 'unconstrained'.
+ * The one place a class is computed: imports, the site page and the demo seed all call it.
  */
 export function qualityClass(input: QualityInput): QualityClass {
 	const { heatFlowMWm2: q, heatFlowSigmaMWm2: sigma } = input;
@@ -48,9 +79,14 @@ export function qualityClass(input: QualityInput): QualityClass {
 		return 'unconstrained';
 	}
 	const relative = sigma / q;
-	let rank = relative <= 0.1 ? 0 : relative <= 0.2 ? 1 : relative <= 0.35 ? 2 : 3;
-	const fewSamples = (input.conductivitySamples ?? 0) < 5;
-	if (fewSamples && input.method !== 'marine_probe') rank += 1;
-	rank = Math.max(rank, METHOD_CEILING[input.method]);
-	return QUALITY_CLASSES[Math.min(rank, 3)];
+	let rank = rankOf('unconstrained');
+	for (const [c, max] of Object.entries(MAX_RELATIVE_SIGMA) as [QualityClass, number][]) {
+		if (relative <= max) {
+			rank = Math.min(rank, rankOf(c));
+		}
+	}
+	const fewSamples = (input.conductivitySamples ?? 0) < MIN_CONDUCTIVITY_SAMPLES;
+	if (fewSamples && !IN_SITU_CONDUCTIVITY_METHODS.includes(input.method)) rank += 1;
+	rank = Math.max(rank, rankOf(BEST_CLASS_BY_METHOD[input.method]));
+	return QUALITY_CLASSES[Math.min(rank, QUALITY_CLASSES.length - 1)];
 }

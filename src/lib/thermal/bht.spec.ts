@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { hornerFormationTemperature } from './bht';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 // Invented logging run: T∞ = 120 °C, m = 15 °C, circulation 5 h; T(Δt) = T∞ − m ln((tc + Δt)/Δt)
 // (Horner 1951; Dowdle & Cobb 1975).

@@ -4,9 +4,9 @@
 // Horner log-time x = ln((tc + Δt)/Δt) at x = 0 (infinite shut-in). Any time unit works: only the
 // ratio enters; hours are used in the names.
 
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { linearFit } from './regression';
-import { requireFinite, requirePositive } from './validate';
+import { requireFinite, requirePositive } from '../foundation/validate';
 
 /** One BHT reading of a logging run. */
 export interface BhtReading {
@@ -30,7 +30,7 @@ export function hornerFormationTemperature(
 	circulationTimeH?: number
 ): HornerEstimate {
 	if (!Array.isArray(readings) || readings.length < 2) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'readings',
 			readings?.length,
 			'must hold at least 2 bottom-hole temperatures'
@@ -44,7 +44,7 @@ export function hornerFormationTemperature(
 		requirePositive(`readings[${i}].shutInTimeH`, r.shutInTimeH);
 		const tc = r.circulationTimeH ?? circulationTimeH;
 		if (tc == null) {
-			throw new ThermalInputError(
+			throw new InputError(
 				`readings[${i}].circulationTimeH`,
 				tc,
 				'must be given (or a run-wide circulationTimeH)'
@@ -56,7 +56,7 @@ export function hornerFormationTemperature(
 	});
 	const distinct = new Set(x).size;
 	if (distinct < 2) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'readings',
 			readings.length,
 			'must include at least 2 different Horner times (shut-in / circulation)'

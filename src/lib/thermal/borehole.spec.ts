@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { bullardPlot, heatFlowFromLog, temperatureGradient } from './borehole';
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import type { ConductivityInterval } from './intervals';
 import { linearFit } from './regression';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 describe('least-squares line with standard errors (common practice, no source)', () => {
 	it('matches a hand computation', () => {
@@ -62,7 +62,7 @@ describe('Bullard method (Bullard 1939)', () => {
 		);
 	});
 
-	it('combines the slope error with the conductivity error: σq/q = √((σΓ/Γ)² + (σk/k)²) (SCIENCE.md §2)', () => {
+	it('combines the slope error with the conductivity error: σq/q = √((σΓ/Γ)² + (σk/k)²) (Taylor 1997 ch. 3)', () => {
 		// Noise-free data: only the conductivity term is left. σR² = (500·0.1/4)² + (500·0.3/9)², R = 416.67.
 		const est = heatFlowFromLog({ depthM, temperatureC, conductivity, method: 'bullard' });
 		const sigmaR = Math.hypot((500 * 0.1) / 4, (500 * 0.3) / 9);
@@ -70,7 +70,7 @@ describe('Bullard method (Bullard 1939)', () => {
 	});
 });
 
-describe('interval method: q = k̄ Γ (SCIENCE.md §3)', () => {
+describe('interval method: q = k̄ Γ (harmonic mean of layers in series; common practice, no source)', () => {
 	it('recovers q inside one unit and its least-squares gradient (30 K/km for k = 2)', () => {
 		const est = heatFlowFromLog({
 			depthM,
@@ -139,9 +139,9 @@ describe('bad logs', () => {
 			'conductivity[1].conductivityWmK'
 		],
 		['unknown method', { ...base, method: 'magic' as 'bullard' }, 'method']
-	])('throws a ThermalInputError: %s', (_, input, field) => {
+	])('throws a InputError: %s', (_, input, field) => {
 		const e = thrown(() => heatFlowFromLog(input));
-		expect(e).toBeInstanceOf(ThermalInputError);
+		expect(e).toBeInstanceOf(InputError);
 		expect(e.field).toBe(field);
 		expect(e.message).toContain(field);
 	});

@@ -1,14 +1,14 @@
-// Heat flow from a borehole temperature log (SCIENCE.md §3).
+// Heat flow from a borehole temperature log (docs/science.md#borehole-heat-flow).
 // Interval method: q = k̄ Γ, Γ the least-squares gradient, k̄ the thickness-weighted harmonic mean.
 // Bullard method: T = T0 + q R(z) with R = ∫ dz/k; q is the least-squares slope of T on R
 // (Bullard 1939, Proc. R. Soc. Lond. A 173).
-// Uncertainty (first order, SCIENCE.md §2): σq/q = √((σΓ/Γ)² + (σk̄/k̄)²), written as
+// Uncertainty (first order, Taylor 1997 ch. 3; docs/science.md#uncertainty): σq/q = √((σΓ/Γ)² + (σk̄/k̄)²), written as
 // σq = √((k̄ σΓ)² + (Γ σk̄)²) so Γ = 0 stays finite. σΓ is the slope's standard error; σk̄/k̄ = σR/R with
 // σR² = Σ (hᵢ σᵢ / kᵢ²)² over the intervals (independent). For Bullard, the slope's own standard
 // error takes the place of k̄ σΓ and the same σR/R is the conductivity term (a common shift of all R
 // values scales the slope by R/(R + δR)).
 
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import {
 	rangeResistance,
 	requireCoverage,
@@ -17,7 +17,13 @@ import {
 	type ConductivityInterval
 } from './intervals';
 import { linearFit } from './regression';
-import { requireAllFinite, requireFinite, requireIncreasing, requireSameLength } from './validate';
+import {
+	requireAllFinite,
+	requireFinite,
+	requireIncreasing,
+	requireSameLength
+} from '../foundation/validate';
+import { kPerKmToKPerM, kPerMToKPerKm, wm2ToMWm2 } from '../geo/units';
 
 export interface HeatFlowFromLogInput {
 	depthM: number[]; // a temperature log, depths increasing
@@ -53,9 +59,9 @@ export function logWindow(
 	fromM?: number,
 	toM?: number
 ): LogWindow {
-	if (!Array.isArray(depthM)) throw new ThermalInputError('depthM', depthM, 'must be an array');
+	if (!Array.isArray(depthM)) throw new InputError('depthM', depthM, 'must be an array');
 	if (!Array.isArray(temperatureC))
-		throw new ThermalInputError('temperatureC', temperatureC, 'must be an array');
+		throw new InputError('temperatureC', temperatureC, 'must be an array');
 	requireSameLength('temperatureC', depthM, temperatureC);
 	requireIncreasing('depthM', depthM);
 	requireAllFinite('temperatureC', temperatureC);
@@ -69,7 +75,7 @@ export function logWindow(
 	while (last >= 0 && depthM[last] > to) last--;
 	const samples = last - first + 1;
 	if (samples < 3) {
-		throw new ThermalInputError(
+		throw new InputError(
 			fromM != null || toM != null ? 'fromM/toM' : 'depthM',
 			[fromM ?? null, toM ?? null],
 			`must select at least 3 log points for a fit; the range holds ${Math.max(0, samples)}`
@@ -90,8 +96,8 @@ export function temperatureGradient(input: {
 	const x = input.depthM.slice(w.first, w.last + 1).map((z) => z - w.topM);
 	const fit = linearFit(x, input.temperatureC.slice(w.first, w.last + 1));
 	return {
-		gradientKPerKm: fit.slope * 1000,
-		sigmaGradientKPerKm: fit.sigmaSlope * 1000,
+		gradientKPerKm: kPerMToKPerKm(fit.slope),
+		sigmaGradientKPerKm: kPerMToKPerKm(fit.sigmaSlope),
 		interceptC: fit.intercept,
 		samples: fit.samples
 	};
@@ -100,7 +106,7 @@ export function temperatureGradient(input: {
 /** Heat flow (mW/m², up positive) from a temperature log and conductivities, interval or Bullard method. */
 export function heatFlowFromLog(input: HeatFlowFromLogInput): HeatFlowEstimate {
 	if (input.method !== 'interval' && input.method !== 'bullard') {
-		throw new ThermalInputError('method', input.method, "must be 'interval' or 'bullard'");
+		throw new InputError('method', input.method, "must be 'interval' or 'bullard'");
 	}
 	const w = logWindow(input.depthM, input.temperatureC, input.fromM, input.toM);
 	const intervals = sortedIntervals(input.conductivity);
@@ -109,8 +115,8 @@ export function heatFlowFromLog(input: HeatFlowFromLogInput): HeatFlowEstimate {
 	const meanK = (w.bottomM - w.topM) / resistanceM2KW;
 	const relSigmaK = sigmaResistanceM2KW / resistanceM2KW; // σk̄/k̄ = σR/R
 	const gradient = temperatureGradient(input);
-	const gammaKPerM = gradient.gradientKPerKm / 1000;
-	const sigmaGammaKPerM = gradient.sigmaGradientKPerKm / 1000;
+	const gammaKPerM = kPerKmToKPerM(gradient.gradientKPerKm);
+	const sigmaGammaKPerM = kPerKmToKPerM(gradient.sigmaGradientKPerKm);
 
 	let qWm2: number;
 	let sigmaWm2: number;
@@ -128,8 +134,8 @@ export function heatFlowFromLog(input: HeatFlowFromLogInput): HeatFlowEstimate {
 		interceptC = fit.intercept;
 	}
 	return {
-		heatFlowMWm2: qWm2 * 1e3,
-		sigmaMWm2: sigmaWm2 * 1e3,
+		heatFlowMWm2: wm2ToMWm2(qWm2),
+		sigmaMWm2: wm2ToMWm2(sigmaWm2),
 		gradientKPerKm: gradient.gradientKPerKm,
 		sigmaGradientKPerKm: gradient.sigmaGradientKPerKm,
 		meanConductivityWmK: meanK,

@@ -7,7 +7,7 @@ import {
 	matrixConductivityWmK,
 	porousRockConductivityWmK
 } from './conductivity';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 describe('mean conductivities (common practice, no source)', () => {
 	it('computes the three means of 2 and 4 by hand: 8/3, √8, 3', () => {

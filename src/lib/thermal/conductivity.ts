@@ -1,16 +1,15 @@
 // Mean conductivities and mixing laws (common practice, no source, unless noted).
 
-import { ThermalInputError } from './errors';
-import { requireInRange, requirePositive } from './validate';
+import { InputError } from '../foundation/errors';
+import { requireInRange, requirePositive } from '../foundation/validate';
 
 /** Thermal conductivity of water near 20 °C, W/m/K (handbook value, from memory). */
 export const WATER_CONDUCTIVITY_20C_WMK = 0.6;
 
 function checkWeighted(values: readonly number[], weights: readonly number[] | undefined): void {
-	if (values.length === 0)
-		throw new ThermalInputError('conductivityWmK', values, 'must not be empty');
+	if (values.length === 0) throw new InputError('conductivityWmK', values, 'must not be empty');
 	if (weights && weights.length !== values.length) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'weights',
 			weights.length,
 			`must have one weight per value (${values.length})`

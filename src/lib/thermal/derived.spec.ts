@@ -11,7 +11,7 @@ import {
 } from './derived';
 import { solveGeotherm } from './geotherm';
 import type { GeothermProfile } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 // A tiny hand-made profile (not from the solver) for interpolation and crossing rules.
 const handMade: GeothermProfile = {
@@ -37,7 +37,7 @@ describe('temperature and heat flow at depth (linear between samples; common pra
 		expect(thrown(() => temperatureAtDepthC(handMade, NaN)).field).toBe('depthM');
 	});
 
-	it('recovers the SCIENCE.md worked value between samples of a coarse profile only approximately', () => {
+	it('recovers the worked value of docs/science.md#steady-conduction between samples of a coarse profile only approximately', () => {
 		// Worked check (Turcotte & Schubert ch. 4): 230 °C at 10 km; with a 100 m step the chord error
 		// is A h²/(8k) = 5e-4 °C at most, so 10 km (a sample) is exact and 9950 m is 5e-4 low.
 		const p = solveGeotherm({
@@ -52,7 +52,7 @@ describe('temperature and heat flow at depth (linear between samples; common pra
 	});
 });
 
-describe('isotherms', () => {
+describe('isotherms (first crossing, linear between samples: docs/science.md#derived-quantities)', () => {
 	it('finds the first crossing, linear between samples, and null when never reached', () => {
 		expectClose(
 			isothermDepthM(handMade, 35)!,
@@ -95,13 +95,13 @@ describe('Moho temperature and heat-flow split (Turcotte & Schubert ch. 4; Chapm
 		expectClose(mohoTemperatureC(p, 30_000), 660, { abs: 1e-9 }, 'T_Moho');
 		expect(mohoTemperatureC(p)).toBe(p.temperatureC.at(-1));
 	});
-	it('splits surface heat flow into crustal production (2·10 + 0.5·20 = 30 mW/m²) and reduced heat flow (40)', () => {
+	it('splits surface heat flow into crustal production (2·10 + 0.5·20 = 30 mW/m²) and heat flow from below (40)', () => {
 		const split = heatFlowSplit(p, 30_000);
-		expectClose(split.reducedHeatFlowMWm2, 40, { abs: 1e-9 }, 'reduced');
+		expectClose(split.heatFlowBelowMWm2, 40, { abs: 1e-9 }, 'from below');
 		expectClose(split.producedHeatFlowMWm2, 30, { abs: 1e-9 }, 'produced');
 		expectClose(split.producedFraction, 3 / 7, { abs: 1e-12 }, 'fraction');
 		expectClose(
-			heatFlowSplit(p).reducedHeatFlowMWm2,
+			heatFlowSplit(p).heatFlowBelowMWm2,
 			40,
 			{ abs: 1e-9 },
 			'at base (no production below 30 km)'

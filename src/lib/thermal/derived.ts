@@ -1,10 +1,11 @@
 // Quantities read off a sampled geotherm. Between samples the profile is taken as linear, which is
 // what a chart shows; refine depthStepM when that matters.
 
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { linearFit } from './regression';
 import type { GeothermProfile } from './types';
-import { requireFinite } from './validate';
+import { requireFinite } from '../foundation/validate';
+import { kPerKmToKPerM, mWm2PerUWm3ToM } from '../geo/units';
 
 /** Brittle–ductile transition in quartz-rich crust, °C (common practice, no source). */
 export const BRITTLE_DUCTILE_QUARTZ_C = 300;
@@ -21,11 +22,7 @@ function bracket(profile: GeothermProfile, depthM: number): number {
 	const d = profile.depthM;
 	const last = d.length - 1;
 	if (!(depthM >= d[0] && depthM <= d[last])) {
-		throw new ThermalInputError(
-			'depthM',
-			depthM,
-			`must be within the profile, ${d[0]}…${d[last]} m`
-		);
+		throw new InputError('depthM', depthM, `must be within the profile, ${d[0]}…${d[last]} m`);
 	}
 	let lo = 0;
 	let hi = last;
@@ -96,8 +93,12 @@ export function mohoTemperatureC(profile: GeothermProfile, mohoDepthM?: number):
 /** Surface heat flow split into the part produced above a depth and the part coming from below (mW/m²). */
 export interface HeatFlowSplit {
 	surfaceHeatFlowMWm2: number;
-	/** Heat flow entering from below the depth: the reduced (mantle) heat flow when that depth is the Moho. */
-	reducedHeatFlowMWm2: number;
+	/**
+	 * Heat flow entering from below the depth: the mantle (basal) heat flow when that depth is the
+	 * Moho. Not the "reduced heat flow" of the trade, which is the intercept of the heat-flow /
+	 * heat-production relation (heatFlowProvinceFit).
+	 */
+	heatFlowBelowMWm2: number;
 	/** Heat produced between the surface and the depth. */
 	producedHeatFlowMWm2: number;
 	/** producedHeatFlowMWm2 / surfaceHeatFlowMWm2 (NaN when the surface heat flow is 0). */
@@ -105,14 +106,14 @@ export interface HeatFlowSplit {
 	depthM: number;
 }
 
-/** Splits surface heat flow into crustal production and reduced heat flow at depthM (default the base). */
+/** Splits surface heat flow into heat produced above depthM (default the base) and heat flow from below it. */
 export function heatFlowSplit(profile: GeothermProfile, depthM?: number): HeatFlowSplit {
 	const z = depthM ?? profile.depthM[profile.depthM.length - 1];
-	const reduced = depthM == null ? profile.basalHeatFlowMWm2 : heatFlowAtDepthMWm2(profile, z);
-	const produced = profile.surfaceHeatFlowMWm2 - reduced;
+	const below = depthM == null ? profile.basalHeatFlowMWm2 : heatFlowAtDepthMWm2(profile, z);
+	const produced = profile.surfaceHeatFlowMWm2 - below;
 	return {
 		surfaceHeatFlowMWm2: profile.surfaceHeatFlowMWm2,
-		reducedHeatFlowMWm2: reduced,
+		heatFlowBelowMWm2: below,
 		producedHeatFlowMWm2: produced,
 		producedFraction:
 			profile.surfaceHeatFlowMWm2 === 0 ? NaN : produced / profile.surfaceHeatFlowMWm2,
@@ -132,7 +133,7 @@ export function lithosphereBase(
 	options: AdiabatOptions = {}
 ): { depthM: number; temperatureC: number } | null {
 	const tp = options.potentialTemperatureC ?? DEFAULT_POTENTIAL_TEMPERATURE_C;
-	const g = (options.gradientKPerKm ?? DEFAULT_ADIABAT_GRADIENT_K_PER_KM) / 1000;
+	const g = kPerKmToKPerM(options.gradientKPerKm ?? DEFAULT_ADIABAT_GRADIENT_K_PER_KM);
 	requireFinite('potentialTemperatureC', tp);
 	requireFinite('gradientKPerKm', g);
 	const excess = profile.temperatureC.map((t, i) => t - (tp + g * profile.depthM[i]));
@@ -142,6 +143,7 @@ export function lithosphereBase(
 
 /** Linear heat-flow / heat-production fit q0 = qr + D·A0 over sites in one province. */
 export interface HeatFlowProvinceFit {
+	/** The intercept qr: heat flow from below the radiogenic upper layer (the trade's "reduced heat flow"). */
 	reducedHeatFlowMWm2: number;
 	sigmaReducedHeatFlowMWm2: number;
 	characteristicDepthM: number;
@@ -158,7 +160,7 @@ export function heatFlowProvinceFit(
 	sites: { heatFlowMWm2: number; heatProductionUWm3: number }[]
 ): HeatFlowProvinceFit {
 	if (!Array.isArray(sites) || sites.length < 3) {
-		throw new ThermalInputError('sites', sites?.length, 'must hold at least 3 sites');
+		throw new InputError('sites', sites?.length, 'must hold at least 3 sites');
 	}
 	const a = sites.map(
 		(s, i) => (
@@ -170,12 +172,11 @@ export function heatFlowProvinceFit(
 		(s, i) => (requireFinite(`sites[${i}].heatFlowMWm2`, s.heatFlowMWm2), s.heatFlowMWm2)
 	);
 	const fit = linearFit(a, q);
-	// mW/m² per µW/m³ = 1e-3 / 1e-6 m = 1000 m.
 	return {
 		reducedHeatFlowMWm2: fit.intercept,
 		sigmaReducedHeatFlowMWm2: fit.sigmaIntercept,
-		characteristicDepthM: fit.slope * 1000,
-		sigmaCharacteristicDepthM: fit.sigmaSlope * 1000,
+		characteristicDepthM: mWm2PerUWm3ToM(fit.slope),
+		sigmaCharacteristicDepthM: mWm2PerUWm3ToM(fit.sigmaSlope),
 		samples: fit.samples
 	};
 }

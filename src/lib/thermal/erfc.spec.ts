@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { erf, erfc } from './erfc';
-import { expectClose } from './testing';
+import { expectClose } from '../foundation/testing';
 
 // Handbook values, Abramowitz & Stegun Table 7.1 (10 decimals). The three erfc values are the ones
 // quoted in the issue; the others are from memory of the same table (erf(x) = 1 − erfc(x)).

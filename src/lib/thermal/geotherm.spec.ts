@@ -1,9 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { solveGeotherm } from './geotherm';
 import type { CrustLayer, GeothermInput } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 const uniform10km: GeothermInput = {
 	surfaceTemperatureC: 10,
@@ -11,8 +11,8 @@ const uniform10km: GeothermInput = {
 	layers: [{ thicknessM: 10_000, conductivityWmK: 2.5, heatProductionUWm3: 1 }]
 };
 
-describe('closed forms', () => {
-	it('matches the SCIENCE.md worked check: 230 °C and 50 mW/m² at 10 km (Turcotte & Schubert ch. 4)', () => {
+describe('closed forms (Turcotte & Schubert ch. 4; Lachenbruch 1970; Carslaw & Jaeger 1959)', () => {
+	it('matches the worked check of docs/science.md#steady-conduction: 230 °C and 50 mW/m² at 10 km (Turcotte & Schubert ch. 4)', () => {
 		const p = solveGeotherm(uniform10km);
 		expectClose(p.temperatureC.at(-1)!, 230, { abs: 1e-9 }, 'T(10 km)');
 		expectClose(p.heatFlowMWm2.at(-1)!, 50, { abs: 1e-9 }, 'q(10 km)');
@@ -115,7 +115,7 @@ describe('closed forms', () => {
 		expectClose(p.temperatureC.at(-1)!, 822.1188, { abs: 1e-3 }, 'T(30 km)');
 	});
 
-	it("obeys Fourier's law q = k(T) dT/dz with heat production, decay and k(T) combined (SCIENCE.md §1)", () => {
+	it("obeys Fourier's law q = k(T) dT/dz with heat production, decay and k(T) combined (Turcotte & Schubert ch. 4; Carslaw & Jaeger)", () => {
 		const layer: CrustLayer = {
 			thicknessM: 40_000,
 			conductivityWmK: 2.8,
@@ -213,7 +213,7 @@ describe('sampling', () => {
 	});
 });
 
-describe('warnings', () => {
+describe('warnings (plausibility limits: common practice, no source)', () => {
 	it('allows but flags a basal heat flow that makes the surface heat flow negative', () => {
 		const p = solveGeotherm({
 			...uniform10km,
@@ -224,7 +224,7 @@ describe('warnings', () => {
 		expect(p.warnings?.some((w) => w.includes('negative'))).toBe(true);
 	});
 
-	it('flags heat flow turning negative at depth and implausibly high surface heat flow (SCIENCE.md §5)', () => {
+	it('flags heat flow turning negative at depth and implausibly high surface heat flow (common practice, no source)', () => {
 		const low = solveGeotherm({ ...uniform10km, surfaceHeatFlowMWm2: 5 });
 		expect(low.warnings?.some((w) => w.includes('negative at depth'))).toBe(true);
 		const high = solveGeotherm({ ...uniform10km, surfaceHeatFlowMWm2: 600 });
@@ -304,9 +304,9 @@ describe('bad input', () => {
 			'surfaceTemperatureC'
 		]
 	];
-	it.each(cases)('throws a ThermalInputError naming the field: %s', (_, input, field) => {
+	it.each(cases)('throws a InputError naming the field: %s', (_, input, field) => {
 		const e = thrown(() => solveGeotherm(input));
-		expect(e).toBeInstanceOf(ThermalInputError);
+		expect(e).toBeInstanceOf(InputError);
 		expect(e.field).toBe(field);
 		expect(e.message).toContain(field);
 	});
@@ -363,7 +363,7 @@ function simpsonProductionWm2(layers: CrustLayer[], toM: number): number {
 	return total;
 }
 
-describe('properties over random valid models', () => {
+describe("properties over random valid models (energy balance and Fourier's law, Turcotte & Schubert ch. 4)", () => {
 	it('temperature increases with depth when A >= 0 and q(base) > 0', () => {
 		fc.assert(
 			fc.property(modelArb, (m) => {

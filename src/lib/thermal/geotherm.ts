@@ -1,11 +1,11 @@
-// Steady 1-D conductive geotherm, solved layer by layer in closed form (SCIENCE.md §1):
+// Steady 1-D conductive geotherm, solved layer by layer in closed form (docs/science.md#steady-conduction):
 // each layer starts from the temperature and heat flow at its top and hands both to the next
 // (Chapman 1986). Uniform and exponentially decaying heat production (Lachenbruch 1970;
 // Turcotte & Schubert ch. 4) and k(T) = k0/(1 + bT) via the Kirchhoff transform (Carslaw & Jaeger)
 // combine freely because heat flow does not depend on temperature.
 // Assumptions: steady state, one dimension, conduction only; no advection, no transients.
 
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import {
 	evaluateLayerRange,
 	fromKirchhoffC,
@@ -16,13 +16,9 @@ import {
 } from './layer';
 import { sampleDepthsM } from './sampling';
 import type { CrustLayer, GeothermInput, GeothermProfile } from './types';
-import { requireFinite, requireNonNegative, requirePositive } from './validate';
-
-/** Default output spacing (m). */
-export const DEFAULT_DEPTH_STEP_M = 100;
-
-/** Surface heat flow above which SCIENCE.md §5 asks for a warning outside volcanic areas (mW/m²). */
-export const PLAUSIBLE_MAX_HEAT_FLOW_MWM2 = 500;
+import { MAX_PLAUSIBLE_HEAT_FLOW_MWM2, SOLVER_OUTPUT_STEP_M } from '../foundation/limits';
+import { requireFinite, requireNonNegative, requirePositive } from '../foundation/validate';
+import { mWm2ToWm2, uWm3ToWm3, wm2ToMWm2 } from '../geo/units';
 
 /** A layer in SI units with the state at its top; what the closed forms consume. */
 export interface PreparedLayer {
@@ -37,21 +33,24 @@ export interface PreparedLayer {
 	tTopC: number;
 }
 
-/** A validated model ready to evaluate at any depth. */
+/**
+ * A validated model ready to evaluate at any depth. The layers work in SI; the boundary heat flows
+ * are in mW/m² like the input, and the one the input gave is passed through unchanged.
+ */
 export interface PreparedGeotherm {
 	layers: PreparedLayer[];
 	surfaceTemperatureC: number;
-	surfaceHeatFlowWm2: number;
-	basalHeatFlowWm2: number;
+	surfaceHeatFlowMWm2: number;
+	basalHeatFlowMWm2: number;
 	baseTemperatureC: number;
 	warnings: string[];
 }
 
-/** Checks one layer and throws a ThermalInputError naming `layers[i].field` and the value. */
+/** Checks one layer and throws a InputError naming `layers[i].field` and the value. */
 export function validateLayer(layer: CrustLayer, index: number): void {
 	const f = (name: string) => `layers[${index}].${name}`;
 	if (layer === null || typeof layer !== 'object') {
-		throw new ThermalInputError(`layers[${index}]`, layer, 'must be a layer object');
+		throw new InputError(`layers[${index}]`, layer, 'must be a layer object');
 	}
 	requirePositive(f('thicknessM'), layer.thicknessM);
 	requirePositive(f('conductivityWmK'), layer.conductivityWmK);
@@ -72,7 +71,7 @@ function boundaryCondition(input: GeothermInput): 'surface' | 'basal' {
 	const hasSurface = input.surfaceHeatFlowMWm2 != null;
 	const hasBasal = input.basalHeatFlowMWm2 != null;
 	if (hasSurface === hasBasal) {
-		throw new ThermalInputError(
+		throw new InputError(
 			hasSurface ? 'surfaceHeatFlowMWm2/basalHeatFlowMWm2' : 'surfaceHeatFlowMWm2',
 			hasSurface ? [input.surfaceHeatFlowMWm2, input.basalHeatFlowMWm2] : undefined,
 			'give exactly one of surfaceHeatFlowMWm2 and basalHeatFlowMWm2'
@@ -86,19 +85,19 @@ function boundaryCondition(input: GeothermInput): 'surface' | 'basal' {
 /** Validates an input and computes T and q at every layer top (closed form, SI inside). */
 export function prepareGeotherm(input: GeothermInput): PreparedGeotherm {
 	if (input === null || typeof input !== 'object') {
-		throw new ThermalInputError('input', input, 'must be a GeothermInput object');
+		throw new InputError('input', input, 'must be a GeothermInput object');
 	}
 	requireFinite('surfaceTemperatureC', input.surfaceTemperatureC);
 	const bc = boundaryCondition(input);
 	if (!Array.isArray(input.layers) || input.layers.length === 0) {
-		throw new ThermalInputError('layers', input.layers, 'must be a non-empty array of layers');
+		throw new InputError('layers', input.layers, 'must be a non-empty array of layers');
 	}
 	input.layers.forEach(validateLayer);
 
 	let totalProductionWm2 = 0;
 	for (const layer of input.layers) {
 		totalProductionWm2 += integratedHeatProductionWm2(
-			layer.heatProductionUWm3 * 1e-6,
+			uWm3ToWm3(layer.heatProductionUWm3),
 			layer.heatProductionDecayM ?? Infinity,
 			layer.thicknessM
 		);
@@ -106,8 +105,8 @@ export function prepareGeotherm(input: GeothermInput): PreparedGeotherm {
 	// Energy balance over the whole column: q0 = qb + ∫A dz (Turcotte & Schubert ch. 4).
 	const surfaceHeatFlowWm2 =
 		bc === 'surface'
-			? (input.surfaceHeatFlowMWm2 as number) * 1e-3
-			: (input.basalHeatFlowMWm2 as number) * 1e-3 + totalProductionWm2;
+			? mWm2ToWm2(input.surfaceHeatFlowMWm2 as number)
+			: mWm2ToWm2(input.basalHeatFlowMWm2 as number) + totalProductionWm2;
 
 	const layers: PreparedLayer[] = [];
 	let topM = 0;
@@ -117,7 +116,7 @@ export function prepareGeotherm(input: GeothermInput): PreparedGeotherm {
 		const b = layer.conductivityTempCoeffPerK ?? 0;
 		if (!(1 + b * tTopC > 0)) {
 			// k = k0/(1 + bT) is undefined (infinite or negative) there.
-			throw new ThermalInputError(
+			throw new InputError(
 				i === 0 ? 'surfaceTemperatureC' : `layers[${i}].conductivityTempCoeffPerK`,
 				i === 0 ? tTopC : b,
 				`makes 1 + b·T <= 0 at the top of layer ${i} (T = ${tTopC} °C, b = ${b} /K)`
@@ -128,7 +127,7 @@ export function prepareGeotherm(input: GeothermInput): PreparedGeotherm {
 			bottomM: topM + layer.thicknessM,
 			k0WmK: layer.conductivityWmK,
 			b,
-			aTopWm3: layer.heatProductionUWm3 * 1e-6,
+			aTopWm3: uWm3ToWm3(layer.heatProductionUWm3),
 			decayM: layer.heatProductionDecayM ?? Infinity,
 			qTopWm2,
 			uTopC: toKirchhoffC(tTopC, b),
@@ -151,39 +150,38 @@ export function prepareGeotherm(input: GeothermInput): PreparedGeotherm {
 		topM = prepared.bottomM;
 	});
 
-	const basalHeatFlowWm2 = bc === 'basal' ? (input.basalHeatFlowMWm2 as number) * 1e-3 : qTopWm2;
+	// The boundary heat flow the input gave is kept as given; only the other one is derived.
+	const surfaceHeatFlowMWm2 =
+		bc === 'surface' ? (input.surfaceHeatFlowMWm2 as number) : wm2ToMWm2(surfaceHeatFlowWm2);
+	const basalHeatFlowMWm2 =
+		bc === 'basal' ? (input.basalHeatFlowMWm2 as number) : wm2ToMWm2(qTopWm2);
 	return {
 		layers,
 		surfaceTemperatureC: input.surfaceTemperatureC,
-		surfaceHeatFlowWm2,
-		basalHeatFlowWm2,
+		surfaceHeatFlowMWm2,
+		basalHeatFlowMWm2,
 		baseTemperatureC: tTopC,
-		warnings: plausibilityWarnings(surfaceHeatFlowWm2, basalHeatFlowWm2, bc)
+		warnings: plausibilityWarnings(surfaceHeatFlowMWm2, basalHeatFlowMWm2, bc)
 	};
 }
 
-/** Warnings for allowed but suspicious boundary heat flows (SCIENCE.md §5). */
-export function plausibilityWarnings(
-	q0Wm2: number,
-	qbWm2: number,
-	bc: 'surface' | 'basal'
-): string[] {
+/** Warnings for allowed but suspicious boundary heat flows (mW/m²; limits in foundation/limits.ts). */
+export function plausibilityWarnings(q0: number, qb: number, bc: 'surface' | 'basal'): string[] {
 	const warnings: string[] = [];
-	const q0 = q0Wm2 * 1e3;
 	if (q0 < 0) {
 		warnings.push(
 			`surface heat flow is negative (${q0.toFixed(3)} mW/m²)` +
 				(bc === 'basal' ? ': the basal heat flow is below minus the crustal heat production' : '')
 		);
-	} else if (qbWm2 < 0) {
+	} else if (qb < 0) {
 		warnings.push(
-			`heat flow turns negative at depth (basal ${(qbWm2 * 1e3).toFixed(3)} mW/m²): ` +
+			`heat flow turns negative at depth (basal ${qb.toFixed(3)} mW/m²): ` +
 				'the layers produce more heat than the surface heat flow carries, so temperature falls with depth'
 		);
 	}
-	if (q0 > PLAUSIBLE_MAX_HEAT_FLOW_MWM2) {
+	if (q0 > MAX_PLAUSIBLE_HEAT_FLOW_MWM2) {
 		warnings.push(
-			`surface heat flow ${q0.toFixed(1)} mW/m² is above ${PLAUSIBLE_MAX_HEAT_FLOW_MWM2} (implausible outside volcanic areas)`
+			`surface heat flow ${q0.toFixed(1)} mW/m² is above ${MAX_PLAUSIBLE_HEAT_FLOW_MWM2} (implausible outside volcanic areas)`
 		);
 	}
 	return warnings;
@@ -214,7 +212,7 @@ export function evaluateInLayer(layer: PreparedLayer, depthM: number): [number, 
 /** Solves a layered steady geotherm in closed form; outputs °C and mW/m² at the sample depths (m). */
 export function solveGeotherm(input: GeothermInput): GeothermProfile {
 	const model = prepareGeotherm(input);
-	const step = input.depthStepM ?? DEFAULT_DEPTH_STEP_M;
+	const step = input.depthStepM ?? SOLVER_OUTPUT_STEP_M;
 	requirePositive('depthStepM', step);
 	const bases = model.layers.map((l) => l.bottomM);
 	const depthM = sampleDepthsM(bases, step);
@@ -230,15 +228,15 @@ export function solveGeotherm(input: GeothermInput): GeothermProfile {
 		i = end;
 	}
 	// The end samples repeat the boundary values exactly rather than re-deriving them.
-	heatFlowMWm2[0] = model.surfaceHeatFlowWm2 * 1e3;
-	heatFlowMWm2[depthM.length - 1] = model.basalHeatFlowWm2 * 1e3;
+	heatFlowMWm2[0] = model.surfaceHeatFlowMWm2;
+	heatFlowMWm2[depthM.length - 1] = model.basalHeatFlowMWm2;
 	temperatureC[0] = model.surfaceTemperatureC;
 	return {
 		depthM,
 		temperatureC,
 		heatFlowMWm2,
-		surfaceHeatFlowMWm2: model.surfaceHeatFlowWm2 * 1e3,
-		basalHeatFlowMWm2: model.basalHeatFlowWm2 * 1e3,
+		surfaceHeatFlowMWm2: model.surfaceHeatFlowMWm2,
+		basalHeatFlowMWm2: model.basalHeatFlowMWm2,
 		layerBaseDepthsM: bases,
 		warnings: model.warnings
 	};

@@ -1,14 +1,11 @@
 // Public entry point of the thermal computation core: pure TypeScript, no framework, database,
-// Node or DOM imports, so it runs in the browser and on the server. See docs/thermal.md.
+// Node or DOM imports, so it runs in the browser and on the server. Methods and sources:
+// docs/science.md.
 
-export { ThermalInputError } from './errors';
+// InputError is the one error type of all pure modules; re-exported for the thermal API's callers.
+export { InputError } from '../foundation/errors';
 export type { CrustLayer, GeothermInput, GeothermProfile } from './types';
-export {
-	solveGeotherm,
-	prepareGeotherm,
-	DEFAULT_DEPTH_STEP_M,
-	PLAUSIBLE_MAX_HEAT_FLOW_MWM2
-} from './geotherm';
+export { solveGeotherm, prepareGeotherm } from './geotherm';
 export type { PreparedGeotherm, PreparedLayer } from './geotherm';
 export { solveGeothermNumerical, segmentsFromLayers } from './numerical';
 export type { NumericalGeothermInput, NumericalSegment } from './numerical';
@@ -37,8 +34,6 @@ export type {
 export type { Distribution } from './distributions';
 export { uniformTemperatureBand, NORMAL_Z90 } from './propagation';
 export type { UniformUncertaintyInput, LinearisedBand } from './propagation';
-export { createRandom } from './random';
-export type { Random } from './random';
 export { percentilesInPlace } from './percentile';
 export { heatFlowFromLog, temperatureGradient, bullardPlot } from './borehole';
 export type { HeatFlowFromLogInput, HeatFlowEstimate } from './borehole';
@@ -54,16 +49,6 @@ export {
 	WATER_CONDUCTIVITY_20C_WMK
 } from './conductivity';
 export { heatProductionUWm3 } from './radiogenic';
-export {
-	convertHeatFlow,
-	hfuToMWm2,
-	mWm2ToHfu,
-	wm2ToMWm2,
-	mWm2ToWm2,
-	MWM2_PER_HFU,
-	SECONDS_PER_YEAR
-} from './units';
-export type { HeatFlowUnit } from './units';
 export { hornerFormationTemperature } from './bht';
 export type { BhtReading, HornerEstimate } from './bht';
 export {

@@ -1,7 +1,7 @@
 // Conductivity intervals measured along a borehole: validation, coverage, thermal resistance.
 
-import { ThermalInputError } from './errors';
-import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import { InputError } from '../foundation/errors';
+import { requireFinite, requireNonNegative, requirePositive } from '../foundation/validate';
 
 /** A depth interval (m) with its measured conductivity (W/m/K) and optional standard deviation. */
 export interface ConductivityInterval {
@@ -19,17 +19,13 @@ export function sortedIntervals(
 	intervals: readonly ConductivityInterval[]
 ): ConductivityInterval[] {
 	if (!Array.isArray(intervals) || intervals.length === 0) {
-		throw new ThermalInputError(
-			'conductivity',
-			intervals,
-			'must be a non-empty array of intervals'
-		);
+		throw new InputError('conductivity', intervals, 'must be a non-empty array of intervals');
 	}
 	intervals.forEach((c, i) => {
 		requireFinite(`conductivity[${i}].topM`, c.topM);
 		requireFinite(`conductivity[${i}].bottomM`, c.bottomM);
 		if (!(c.bottomM > c.topM)) {
-			throw new ThermalInputError(
+			throw new InputError(
 				`conductivity[${i}].bottomM`,
 				c.bottomM,
 				`must be greater than topM (${c.topM})`
@@ -41,7 +37,7 @@ export function sortedIntervals(
 	const sorted = [...intervals].sort((a, b) => a.topM - b.topM);
 	for (let i = 1; i < sorted.length; i++) {
 		if (sorted[i].topM < sorted[i - 1].bottomM - TOUCH_M) {
-			throw new ThermalInputError(
+			throw new InputError(
 				'conductivity',
 				[sorted[i - 1].topM, sorted[i - 1].bottomM, sorted[i].topM],
 				`intervals overlap: one ends at ${sorted[i - 1].bottomM} m, the next starts at ${sorted[i].topM} m`
@@ -65,7 +61,7 @@ export function requireCoverage(
 		if (reached >= bottomM - TOUCH_M) return;
 	}
 	if (reached < bottomM - TOUCH_M) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'conductivity',
 			[topM, bottomM],
 			`must cover the fitted range ${topM}…${bottomM} m; nothing covers ${reached} m and below it`

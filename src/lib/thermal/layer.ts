@@ -4,6 +4,11 @@
 // (Carslaw & Jaeger; applied to crust by Chapman 1986), so every layer is solved in U and mapped back.
 // `decayM` is Infinity for uniform heat production; `b` is 0 for constant conductivity.
 
+import { wm2ToMWm2 } from '../geo/units';
+
+// A local binding: the bulk loop below calls functions of this module only (see evaluateLayerRange).
+const toMWm2 = wm2ToMWm2;
+
 /** x + expm1(−x) = x²/2 − x³/6 + …, without cancellation for small x (needed as decay → ∞). */
 function excessOverLinear(x: number): number {
 	if (x < 0.1) {
@@ -109,6 +114,6 @@ export function evaluateLayerRange(
 			u = u0 + (q0 * s - a * h * h * (x < 0.1 ? excessOverLinear(x) : x + e)) * invK;
 		}
 		temperatureC[i] = b === 0 ? u : fromKirchhoffC(u, b);
-		heatFlowMWm2[i] = q * 1e3;
+		heatFlowMWm2[i] = toMWm2(q);
 	}
 }

@@ -3,10 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { solveGeotherm } from './geotherm';
 import { drawTruncated } from './distributions';
 import { monteCarloGeotherm, type MonteCarloInput } from './montecarlo';
-import { createRandom } from './random';
+import { createRandom } from '../foundation/random';
 import { NORMAL_Z90, uniformTemperatureBand } from './propagation';
 import type { CrustLayer, GeothermInput } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 const uniform: GeothermInput = {
 	surfaceTemperatureC: 10,
@@ -15,7 +15,7 @@ const uniform: GeothermInput = {
 	layers: [{ thicknessM: 40_000, conductivityWmK: 2.5, heatProductionUWm3: 1 }]
 };
 
-describe('Monte Carlo geotherm bands', () => {
+describe('Monte Carlo geotherm bands (type-7 percentiles, Hyndman & Fan 1996; normal quantiles from memory)', () => {
 	it('is reproducible for a seed and changes with the seed', () => {
 		const run = (seed: number) =>
 			monteCarloGeotherm({
@@ -39,7 +39,7 @@ describe('Monte Carlo geotherm bands', () => {
 		});
 	});
 
-	it('agrees with first-order propagation for 1 % uncertainties (SCIENCE.md §2)', () => {
+	it('agrees with first-order propagation for 1 % uncertainties (Taylor 1997 ch. 3; docs/science.md#uncertainty)', () => {
 		const sigmas = { q: 0.6, k: 0.025, a: 0.01 };
 		const band = monteCarloGeotherm({
 			model: uniform,

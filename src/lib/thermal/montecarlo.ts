@@ -9,8 +9,8 @@
 // percentiles tracked from depth to depth (tracker.ts) instead of sorting every column.
 
 import { drawTruncated, type Distribution } from './distributions';
-import { ThermalInputError } from './errors';
-import { DEFAULT_DEPTH_STEP_M, prepareGeotherm, type PreparedLayer } from './geotherm';
+import { InputError } from '../foundation/errors';
+import { prepareGeotherm, type PreparedLayer } from './geotherm';
 import {
 	fromKirchhoffC,
 	heatFlowInLayerWm2,
@@ -19,11 +19,13 @@ import {
 	toKirchhoffC
 } from './layer';
 import { percentilesInPlace } from './percentile';
-import { createRandom, type Random } from './random';
+import { createRandom, type Random } from '../foundation/random';
 import { PercentileTracker } from './tracker';
 import { sampleDepthsM } from './sampling';
 import type { GeothermInput } from './types';
-import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import { MONTE_CARLO_SAMPLES, MONTE_CARLO_SEED, SOLVER_OUTPUT_STEP_M } from '../foundation/limits';
+import { requireFinite, requireNonNegative, requirePositive } from '../foundation/validate';
+import { mWm2ToWm2, uWm3ToWm3, wm2ToMWm2, wm3ToUWm3 } from '../geo/units';
 
 /** Standard deviations of one layer's inputs; omitted = known exactly. */
 export interface LayerUncertainty {
@@ -45,8 +47,8 @@ export interface MonteCarloInput {
 	heatProductionDistribution?: Distribution;
 	/** Bounds of the boundary heat flow draws (mW/m²), default [0, Infinity). */
 	heatFlowBoundsMWm2?: [number, number];
-	samples?: number; // default 1000
-	seed?: number; // default 1
+	samples?: number; // default MONTE_CARLO_SAMPLES
+	seed?: number; // default MONTE_CARLO_SEED
 	isothermsC?: number[];
 	/** Also return mean and standard deviation per depth (costs one exp per sample and depth). */
 	moments?: boolean;
@@ -88,13 +90,13 @@ const P = [0.1, 0.5, 0.9];
 /** Seeded Monte Carlo geotherm band: P10/P50/P90 temperature (°C) at the profile depths (m). */
 export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 	const central = prepareGeotherm(input.model); // validates the central model
-	const n = input.samples ?? 1000;
+	const n = input.samples ?? MONTE_CARLO_SAMPLES;
 	if (!Number.isInteger(n) || n < 2 || n > 10_000_000) {
-		throw new ThermalInputError('samples', n, 'must be an integer between 2 and 10,000,000');
+		throw new InputError('samples', n, 'must be an integer between 2 and 10,000,000');
 	}
-	const seed = input.seed ?? 1;
+	const seed = input.seed ?? MONTE_CARLO_SEED;
 	requireFinite('seed', seed);
-	const step = input.model.depthStepM ?? DEFAULT_DEPTH_STEP_M;
+	const step = input.model.depthStepM ?? SOLVER_OUTPUT_STEP_M;
 	requirePositive('depthStepM', step);
 	const sigmaQ = input.heatFlowSigmaMWm2 ?? 0;
 	requireNonNegative('heatFlowSigmaMWm2', sigmaQ);
@@ -103,7 +105,7 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 	isotherms.forEach((t, i) => requireFinite(`isothermsC[${i}]`, t));
 	const uncertainties = input.layers ?? [];
 	if (uncertainties.length > central.layers.length) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'layers',
 			uncertainties.length,
 			`must not exceed the ${central.layers.length} model layers`
@@ -230,8 +232,8 @@ export function monteCarloGeotherm(input: MonteCarloInput): MonteCarloBand {
 		p50C: Array.from(p50C),
 		p90C: Array.from(p90C),
 		...(moments ? { meanC: Array.from(meanC), sdC: Array.from(sdC) } : {}),
-		surfaceHeatFlowMWm2: triple(q0, 1e3),
-		basalHeatFlowMWm2: triple(qb, 1e3),
+		surfaceHeatFlowMWm2: triple(q0, wm2ToMWm2),
+		basalHeatFlowMWm2: triple(qb, wm2ToMWm2),
 		isotherms: isotherms.map((temperatureC, m) => {
 			const cross = crossings[m];
 			let reached = 0;
@@ -289,8 +291,9 @@ function drawSamples(
 	const kField = layers.map((_, j) => `layers[${j}].conductivitySigmaWmK`);
 	const aField = layers.map((_, j) => `layers[${j}].heatProductionSigmaUWm3`);
 	for (let s = 0; s < n; s++) {
-		const qDraw =
-			drawTruncated(random, o.qDist, o.qMean, o.sigmaQ, o.qMin, o.qMax, 'heatFlowSigmaMWm2') * 1e-3;
+		const qDraw = mWm2ToWm2(
+			drawTruncated(random, o.qDist, o.qMean, o.sigmaQ, o.qMin, o.qMax, 'heatFlowSigmaMWm2')
+		);
 		let production = 0;
 		for (let j = 0; j < L; j++) {
 			const lay = layers[j];
@@ -303,8 +306,10 @@ function drawSamples(
 				Infinity,
 				kField[j]
 			);
-			aTop[j][s] =
-				drawTruncated(random, o.aDist, lay.aTopWm3 * 1e6, aSigma[j], 0, Infinity, aField[j]) * 1e-6;
+			// Drawn in µW/m³, the unit of the given standard deviation.
+			aTop[j][s] = uWm3ToWm3(
+				drawTruncated(random, o.aDist, wm3ToUWm3(lay.aTopWm3), aSigma[j], 0, Infinity, aField[j])
+			);
 			production += integratedHeatProductionWm2(aTop[j][s], lay.decayM, lay.bottomM - lay.topM);
 		}
 		let q = o.basal ? qDraw + production : qDraw;
@@ -314,7 +319,7 @@ function drawSamples(
 			const lay = layers[j];
 			const thickness = lay.bottomM - lay.topM;
 			if (!(1 + lay.b * t > 0)) {
-				throw new ThermalInputError(
+				throw new InputError(
 					`layers[${j}].conductivityTempCoeffPerK`,
 					lay.b,
 					`makes 1 + b·T <= 0 in sample ${s}`
@@ -455,7 +460,7 @@ function kirchhoffTarget(temperatureC: number, b: number): number {
 	return 1 + b * temperatureC > 0 ? toKirchhoffC(temperatureC, b) : -Infinity;
 }
 
-function triple(values: Float64Array, scale: number): PercentileTriple {
+function triple(values: Float64Array, convert: (v: number) => number): PercentileTriple {
 	const [p10, p50, p90] = percentilesInPlace(values.slice(), P);
-	return { p10: p10 * scale, p50: p50 * scale, p90: p90 * scale };
+	return { p10: convert(p10), p50: convert(p50), p90: convert(p90) };
 }

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 import { solveGeotherm } from './geotherm';
 import { segmentsFromLayers, solveGeothermNumerical } from './numerical';
 import type { CrustLayer } from './types';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 // Two layers with a jump in k and A, exponential decay and k(T) in both: every closed-form case of
-// SCIENCE.md §1 at once, so the RK4 solver is checked against all of them.
+// docs/science.md#steady-conduction at once, so the RK4 solver is checked against all of them.
 const layers: CrustLayer[] = [
 	{
 		thicknessM: 15_000,
@@ -37,7 +37,7 @@ function baseError(stepM: number, basal: boolean): number {
 	return Math.abs(rk4.temperatureC.at(-1)! - exact.temperatureC.at(-1)!);
 }
 
-describe('RK4 solver (dT/dz = q/k(T,z), dq/dz = −A(z))', () => {
+describe('RK4 solver (dT/dz = q/k(T,z), dq/dz = −A(z); classical Runge–Kutta, Press et al. 2007 ch. 17)', () => {
 	it.each([false, true])(
 		'converges to the closed form at fourth order (basal condition: %s)',
 		(basal) => {
@@ -101,10 +101,10 @@ describe('RK4 solver (dT/dz = q/k(T,z), dq/dz = −A(z))', () => {
 		}
 	});
 
-	it('throws ThermalInputErrors for bad input', () => {
+	it('throws InputErrors for bad input', () => {
 		const segments = segmentsFromLayers(layers);
 		const e = thrown(() => solveGeothermNumerical({ surfaceTemperatureC: 0, segments }));
-		expect(e).toBeInstanceOf(ThermalInputError);
+		expect(e).toBeInstanceOf(InputError);
 		expect(e.field).toBe('surfaceHeatFlowMWm2');
 		expect(
 			thrown(() =>

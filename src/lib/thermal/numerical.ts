@@ -1,16 +1,18 @@
 // General steady 1-D solver for properties that vary with depth and temperature: the first-order
-// system dT/dz = q/k(T, z), dq/dz = −A(z) (SCIENCE.md §1) integrated with classical fourth-order
+// system dT/dz = q/k(T, z), dq/dz = −A(z) (docs/science.md#steady-conduction) integrated with classical fourth-order
 // Runge–Kutta. Use it when no closed form applies; solveGeotherm (closed form) is exact otherwise.
 // Properties must be smooth inside a segment: the integrator lands exactly on segment boundaries,
 // so jumps between segments do not spoil the fourth-order convergence.
 // Assumptions: steady state, one dimension, conduction only; no advection, no transients.
 
-import { ThermalInputError } from './errors';
-import { DEFAULT_DEPTH_STEP_M, plausibilityWarnings, validateLayer } from './geotherm';
+import { InputError } from '../foundation/errors';
+import { plausibilityWarnings, validateLayer } from './geotherm';
 import { conductivityAtTemperatureWmK } from './layer';
 import { sampleDepthsM } from './sampling';
 import type { CrustLayer, GeothermProfile } from './types';
-import { requireFinite, requirePositive } from './validate';
+import { SOLVER_INTEGRATION_STEP_M, SOLVER_OUTPUT_STEP_M } from '../foundation/limits';
+import { requireFinite, requirePositive } from '../foundation/validate';
+import { mWm2ToWm2, uWm3ToWm3, wm2ToMWm2 } from '../geo/units';
 
 /** A depth interval with smooth properties; depths passed to the callbacks are absolute (m). */
 export interface NumericalSegment {
@@ -25,8 +27,8 @@ export interface NumericalGeothermInput {
 	surfaceHeatFlowMWm2?: number;
 	basalHeatFlowMWm2?: number;
 	segments: NumericalSegment[];
-	depthStepM?: number; // output spacing (m), default 100
-	integrationStepM?: number; // largest RK4 step (m), default 100
+	depthStepM?: number; // output spacing (m), default SOLVER_OUTPUT_STEP_M
+	integrationStepM?: number; // largest RK4 step (m), default SOLVER_INTEGRATION_STEP_M
 }
 
 /** Segments with the same properties as CrustLayers, for the numerical solver. */
@@ -53,7 +55,7 @@ export function solveGeothermNumerical(input: NumericalGeothermInput): GeothermP
 	requireFinite('surfaceTemperatureC', input.surfaceTemperatureC);
 	const hasSurface = input.surfaceHeatFlowMWm2 != null;
 	if (hasSurface === (input.basalHeatFlowMWm2 != null)) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'surfaceHeatFlowMWm2',
 			input.surfaceHeatFlowMWm2,
 			'give exactly one of surfaceHeatFlowMWm2 and basalHeatFlowMWm2'
@@ -62,12 +64,12 @@ export function solveGeothermNumerical(input: NumericalGeothermInput): GeothermP
 	const bcValue = (hasSurface ? input.surfaceHeatFlowMWm2 : input.basalHeatFlowMWm2) as number;
 	requireFinite(hasSurface ? 'surfaceHeatFlowMWm2' : 'basalHeatFlowMWm2', bcValue);
 	if (!Array.isArray(input.segments) || input.segments.length === 0) {
-		throw new ThermalInputError('segments', input.segments, 'must be a non-empty array');
+		throw new InputError('segments', input.segments, 'must be a non-empty array');
 	}
 	input.segments.forEach((s, i) => requirePositive(`segments[${i}].thicknessM`, s.thicknessM));
-	const maxStep = input.integrationStepM ?? 100;
+	const maxStep = input.integrationStepM ?? SOLVER_INTEGRATION_STEP_M;
 	requirePositive('integrationStepM', maxStep);
-	const outStep = input.depthStepM ?? DEFAULT_DEPTH_STEP_M;
+	const outStep = input.depthStepM ?? SOLVER_OUTPUT_STEP_M;
 	requirePositive('depthStepM', outStep);
 
 	const bases: number[] = [];
@@ -77,7 +79,7 @@ export function solveGeothermNumerical(input: NumericalGeothermInput): GeothermP
 
 	// Heat flow does not depend on T, so the basal condition maps to a surface one through ∫A dz,
 	// integrated with the same sub-steps (RK4 on dq/dz = −A(z) is Simpson's rule).
-	let q0Wm2 = bcValue * 1e-3;
+	let q0Wm2 = mWm2ToWm2(bcValue);
 	if (!hasSurface) q0Wm2 += integrateProductionWm2(input.segments, bases, depthM, maxStep);
 
 	const temperatureC = new Array<number>(depthM.length);
@@ -85,7 +87,7 @@ export function solveGeothermNumerical(input: NumericalGeothermInput): GeothermP
 	let t = input.surfaceTemperatureC;
 	let q = q0Wm2;
 	temperatureC[0] = t;
-	heatFlowMWm2[0] = q * 1e3;
+	heatFlowMWm2[0] = wm2ToMWm2(q);
 	let seg = 0;
 	for (let i = 1; i < depthM.length; i++) {
 		const za = depthM[i - 1];
@@ -98,9 +100,9 @@ export function solveGeothermNumerical(input: NumericalGeothermInput): GeothermP
 			const z = za + j * h;
 			const zm = z + h / 2;
 			const z1 = j === n - 1 ? zb : z + h;
-			const a0 = a(z) * 1e-6;
-			const am = a(zm) * 1e-6;
-			const a1 = a(z1) * 1e-6;
+			const a0 = uWm3ToWm3(a(z));
+			const am = uWm3ToWm3(a(zm));
+			const a1 = uWm3ToWm3(a(z1));
 			// Classical RK4 on y = (T, q), f = (q/k(T, z), −A(z)); the q-stages are q + h/2·k1q,
 			// q + h/2·k2q and q + h·k3q with k1q = −A(z), k2q = k3q = −A(z + h/2).
 			const kt1 = q / k(t, z);
@@ -111,23 +113,23 @@ export function solveGeothermNumerical(input: NumericalGeothermInput): GeothermP
 			q -= (h * (a0 + 4 * am + a1)) / 6;
 		}
 		temperatureC[i] = t;
-		heatFlowMWm2[i] = q * 1e3;
+		heatFlowMWm2[i] = wm2ToMWm2(q);
 		if (!Number.isFinite(t)) {
-			throw new ThermalInputError(
-				`segments[${seg}]`,
-				t,
-				`give a non-finite temperature at ${zb} m`
-			);
+			throw new InputError(`segments[${seg}]`, t, `give a non-finite temperature at ${zb} m`);
 		}
 	}
 	return {
 		depthM,
 		temperatureC,
 		heatFlowMWm2,
-		surfaceHeatFlowMWm2: q0Wm2 * 1e3,
-		basalHeatFlowMWm2: hasSurface ? q * 1e3 : bcValue,
+		surfaceHeatFlowMWm2: hasSurface ? bcValue : wm2ToMWm2(q0Wm2),
+		basalHeatFlowMWm2: hasSurface ? wm2ToMWm2(q) : bcValue,
 		layerBaseDepthsM: bases,
-		warnings: plausibilityWarnings(q0Wm2, q, hasSurface ? 'surface' : 'basal')
+		warnings: plausibilityWarnings(
+			hasSurface ? bcValue : wm2ToMWm2(q0Wm2),
+			hasSurface ? wm2ToMWm2(q) : bcValue,
+			hasSurface ? 'surface' : 'basal'
+		)
 	};
 }
 
@@ -151,5 +153,5 @@ function integrateProductionWm2(
 			total += (h * (a(z) + 4 * a(z + h / 2) + a(j === n - 1 ? zb : z + h))) / 6;
 		}
 	}
-	return total * 1e-6;
+	return uWm3ToWm3(total);
 }

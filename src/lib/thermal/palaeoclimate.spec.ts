@@ -4,8 +4,8 @@ import {
 	palaeoclimateGradientPerturbationKPerKm,
 	palaeoclimatePerturbationC
 } from './palaeoclimate';
-import { SECONDS_PER_YEAR } from './units';
-import { expectClose, thrown } from './testing';
+import { SECONDS_PER_YEAR } from '../geo/units';
+import { expectClose, thrown } from '../foundation/testing';
 
 // Invented history: the surface warmed by 2 °C 150 years ago; κ = 1e-6 m²/s (common practice).
 const warming = [{ stepC: 2, ageYears: 150 }];

@@ -5,11 +5,11 @@
 // a log gives that undisturbed geotherm (and the undisturbed gradient, which is what heat flow needs).
 
 import { erfc } from './erfc';
-import { ThermalInputError } from './errors';
-import { SECONDS_PER_YEAR } from './units';
-import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import { InputError } from '../foundation/errors';
+import { kPerMToKPerKm, SECONDS_PER_YEAR } from '../geo/units';
+import { requireFinite, requireNonNegative, requirePositive } from '../foundation/validate';
 
-/** Thermal diffusivity of crustal rock, m²/s (about 1e-6: common practice, SCIENCE.md §3). */
+/** Thermal diffusivity of crustal rock, m²/s (about 1e-6: common practice, no source). */
 export const DEFAULT_DIFFUSIVITY_M2S = 1e-6;
 
 /** A surface temperature step of stepC (°C, positive = warming) that happened ageYears ago. */
@@ -19,7 +19,7 @@ export interface SurfaceTemperatureStep {
 }
 
 function checkSteps(steps: readonly SurfaceTemperatureStep[], diffusivityM2s: number): void {
-	if (!Array.isArray(steps)) throw new ThermalInputError('steps', steps, 'must be an array');
+	if (!Array.isArray(steps)) throw new InputError('steps', steps, 'must be an array');
 	steps.forEach((s, i) => {
 		requireFinite(`steps[${i}].stepC`, s.stepC);
 		requirePositive(`steps[${i}].ageYears`, s.ageYears);
@@ -56,7 +56,7 @@ export function palaeoclimateGradientPerturbationKPerKm(
 		const kt = diffusivityM2s * s.ageYears * SECONDS_PER_YEAR;
 		g -= (s.stepC * Math.exp(-(depthM * depthM) / (4 * kt))) / Math.sqrt(Math.PI * kt);
 	}
-	return g * 1000;
+	return kPerMToKPerKm(g);
 }
 
 /** A temperature log (°C) with the palaeoclimate perturbation removed, at the same depths (m). */
@@ -67,7 +67,7 @@ export function correctLogForPalaeoclimate(
 	diffusivityM2s = DEFAULT_DIFFUSIVITY_M2S
 ): number[] {
 	if (depthM.length !== temperatureC.length) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'temperatureC',
 			temperatureC.length,
 			`must have one value per depth (${depthM.length})`

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { percentilesInPlace, selectInPlace } from './percentile';
-import { expectClose } from './testing';
+import { expectClose } from '../foundation/testing';
 
 // Type-7 definition (Hyndman & Fan 1996): value at h = (n − 1) p, linear between order statistics.
 function bySorting(values: number[], p: number): number {
@@ -11,7 +11,7 @@ function bySorting(values: number[], p: number): number {
 	return k + 1 < s.length ? s[k] + (h - k) * (s[k + 1] - s[k]) : s[k];
 }
 
-describe('percentiles by selection', () => {
+describe('percentiles by selection (type 7, Hyndman & Fan 1996)', () => {
 	it('gives the type-7 values for 1…10 by hand: P10 = 1.9, P50 = 5.5, P90 = 9.1', () => {
 		const a = Float64Array.from([7, 3, 10, 1, 5, 9, 2, 8, 4, 6]);
 		const [p10, p50, p90] = percentilesInPlace(a, [0.1, 0.5, 0.9]);

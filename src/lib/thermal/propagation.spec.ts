@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveGeotherm } from './geotherm';
 import { uniformTemperatureBand } from './propagation';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 const input = {
 	surfaceTemperatureC: 10,
@@ -23,7 +23,7 @@ function tAt(q: number, k: number, a: number, z: number): number {
 	return p.temperatureC.at(-1)!;
 }
 
-describe('first-order propagation, uniform case (SCIENCE.md §2)', () => {
+describe('first-order propagation, uniform case (Taylor 1997 ch. 3)', () => {
 	it('reproduces the worked temperature 230 °C at 10 km (Turcotte & Schubert ch. 4)', () => {
 		const band = uniformTemperatureBand(input, [0, 10_000]);
 		expectClose(band.temperatureC[1], 230, { abs: 1e-9 }, 'T');

@@ -1,9 +1,10 @@
 // First-order (linearised) uncertainty of the uniform single-layer geotherm
-// T(z) = T0 + q0 z/k − A z²/(2k) (Turcotte & Schubert ch. 4), with the derivatives of SCIENCE.md §2:
+// T(z) = T0 + q0 z/k − A z²/(2k) (Turcotte & Schubert ch. 4), with the derivatives in docs/science.md#uncertainty (Taylor 1997 ch. 3):
 // ∂T/∂q0 = z/k, ∂T/∂A = −z²/(2k), ∂T/∂k = −(q0 z − A z²/2)/k², inputs independent.
 // Good while relative uncertainties are small; use monteCarloGeotherm otherwise.
 
-import { requireFinite, requireNonNegative, requirePositive } from './validate';
+import { requireFinite, requireNonNegative, requirePositive } from '../foundation/validate';
+import { mWm2ToWm2, uWm3ToWm3 } from '../geo/units';
 
 /** z of the standard normal at the 90th percentile (A&S Table 26.5; 1.2815515655, from memory). */
 export const NORMAL_Z90 = 1.2815515655446004;
@@ -38,12 +39,12 @@ export function uniformTemperatureBand(
 	requireNonNegative('sigmaSurfaceHeatFlowMWm2', input.sigmaSurfaceHeatFlowMWm2);
 	requireNonNegative('sigmaConductivityWmK', input.sigmaConductivityWmK);
 	requireNonNegative('sigmaHeatProductionUWm3', input.sigmaHeatProductionUWm3);
-	const q0 = input.surfaceHeatFlowMWm2 * 1e-3;
-	const sq = input.sigmaSurfaceHeatFlowMWm2 * 1e-3;
+	const q0 = mWm2ToWm2(input.surfaceHeatFlowMWm2);
+	const sq = mWm2ToWm2(input.sigmaSurfaceHeatFlowMWm2);
 	const k = input.conductivityWmK;
 	const sk = input.sigmaConductivityWmK;
-	const a = input.heatProductionUWm3 * 1e-6;
-	const sa = input.sigmaHeatProductionUWm3 * 1e-6;
+	const a = uWm3ToWm3(input.heatProductionUWm3);
+	const sa = uWm3ToWm3(input.sigmaHeatProductionUWm3);
 	const out: LinearisedBand = {
 		depthM: [...depthM],
 		temperatureC: [],

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { heatProductionUWm3 } from './radiogenic';
-import { expectClose, thrown } from './testing';
+import { expectClose, thrown } from '../foundation/testing';
 
 describe('heat production from U, Th, K (Rybach 1988)', () => {
-	it('gives the SCIENCE.md worked value: ρ 2700, U 3 ppm, Th 12 ppm, K 3 % → 1.88244 µW/m³', () => {
+	it('gives the Rybach (1988) value worked in docs/science.md#borehole-heat-flow: ρ 2700, U 3 ppm, Th 12 ppm, K 3 % → 1.88244 µW/m³', () => {
 		expectClose(
 			heatProductionUWm3({ densityKgM3: 2700, uraniumPpm: 3, thoriumPpm: 12, potassiumPct: 3 }),
 			1.88244,

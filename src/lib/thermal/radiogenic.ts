@@ -2,7 +2,7 @@
 // Stegena, Handbook of Terrestrial Heat-Flow Density Determination):
 // A = 1e-5 ρ (9.52 C_U + 2.56 C_Th + 3.48 C_K) µW/m³, ρ in kg/m³, U and Th in ppm, K in weight-%.
 
-import { requireInRange, requireNonNegative, requirePositive } from './validate';
+import { requireInRange, requireNonNegative, requirePositive } from '../foundation/validate';
 
 /** Heat production (µW/m³) from density (kg/m³), U and Th (ppm) and K (weight-%). */
 export function heatProductionUWm3(r: {

@@ -1,7 +1,7 @@
 // Ordinary least squares of y on x with standard errors (common practice, no source; the standard
 // formulas are in any statistics text: s² = SSR/(n − 2), σ_slope = s/√Sxx, σ_intercept = s √(1/n + x̄²/Sxx)).
 
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
 
 /** Result of a straight-line least-squares fit y = intercept + slope·x. */
 export interface LinearFit {
@@ -24,8 +24,7 @@ export function linearFit(
 	to = x.length
 ): LinearFit {
 	const n = to - from;
-	if (n < 2)
-		throw new ThermalInputError('samples', n, 'must be at least 2 for a straight-line fit');
+	if (n < 2) throw new InputError('samples', n, 'must be at least 2 for a straight-line fit');
 	// Centre first (two passes) to avoid the cancellation of the one-pass Σx² − n x̄² formula.
 	let sx = 0;
 	let sy = 0;
@@ -42,7 +41,7 @@ export function linearFit(
 		sxx += dx * dx;
 		sxy += dx * (y[i] - my);
 	}
-	if (!(sxx > 0)) throw new ThermalInputError('x', mx, 'must take at least two different values');
+	if (!(sxx > 0)) throw new InputError('x', mx, 'must take at least two different values');
 	const slope = sxy / sxx;
 	const intercept = my - slope * mx;
 	let ssr = 0;

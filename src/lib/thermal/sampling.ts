@@ -1,4 +1,8 @@
-import { ThermalInputError } from './errors';
+import { InputError } from '../foundation/errors';
+
+/** Two output depths closer than this (m), or than this fraction of the step, are one sample. */
+const SAME_DEPTH_M = 1e-6;
+const SAME_DEPTH_STEP_FRACTION = 1e-3;
 
 /** Above this many samples a profile is almost certainly a unit mistake (e.g. step in km). */
 export const MAX_PROFILE_SAMPLES = 5_000_000;
@@ -34,13 +38,13 @@ function computeDepths(layerBaseDepthsM: readonly number[], depthStepM: number):
 	const baseM = layerBaseDepthsM[layerBaseDepthsM.length - 1];
 	const count = Math.floor(baseM / depthStepM + 1e-9);
 	if (count + layerBaseDepthsM.length > MAX_PROFILE_SAMPLES) {
-		throw new ThermalInputError(
+		throw new InputError(
 			'depthStepM',
 			depthStepM,
 			`gives more than ${MAX_PROFILE_SAMPLES} samples for a ${baseM} m profile`
 		);
 	}
-	const same = Math.min(1e-6, depthStepM * 1e-3);
+	const same = Math.min(SAME_DEPTH_M, depthStepM * SAME_DEPTH_STEP_FRACTION);
 	const depths: number[] = [0];
 	let i = 1; // next multiple
 	let j = 0; // next boundary

@@ -1,13 +1,13 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { percentilesInPlace } from './percentile';
-import { createRandom } from './random';
+import { createRandom } from '../foundation/random';
 import { PercentileTracker } from './tracker';
 
 const P = [0.1, 0.5, 0.9];
 const type7 = ([lo, hi, w]: [number, number, number]) => (w === 0 ? lo : lo + w * (hi - lo));
 
-describe('percentile tracker (exact type-7 percentiles of slowly changing columns)', () => {
+describe('percentile tracker (exact type-7 percentiles of slowly changing columns; Hyndman & Fan 1996)', () => {
 	it('equals selection on every column of a drifting random walk, including sudden reshuffles', () => {
 		fc.assert(
 			fc.property(

@@ -34,7 +34,7 @@ describe('BullardPlot', () => {
 		);
 	});
 
-	it('switches to temperature against depth with the fitted gradient line (brief)', async () => {
+	it('switches to temperature against depth with the fitted gradient line', async () => {
 		render(BullardPlot, { log });
 		await fireEvent.click(screen.getByRole('button', { name: 'Against depth' }));
 		expect(screen.getByRole('button', { name: 'Against depth' }).getAttribute('aria-pressed')).toBe(

@@ -2,11 +2,11 @@
 // must render without `window` so a page can ship the geotherm in its first HTML.
 import { render } from 'svelte/server';
 import { describe, expect, it } from 'vitest';
-import { computeSiteGeotherm } from '$lib/geotherm';
+import { computeSiteGeotherm } from '$lib/chart-data';
 import GeothermChart from './GeothermChart.svelte';
 import GeothermPanel from './GeothermPanel.svelte';
 
-describe('SSR (brief: renders in SSR and in the browser)', () => {
+describe('SSR: renders without a DOM, so a page can ship the geotherm in its first HTML', () => {
 	it('renders the chart to HTML with the band, title and table', () => {
 		const geotherm = computeSiteGeotherm({ heatFlowMWm2: 70 }, { samples: 100 });
 		const { body } = render(GeothermChart, { props: { geotherm, title: 'SSR geotherm' } });

@@ -1,6 +1,6 @@
 import { fireEvent, render, screen } from '@testing-library/svelte';
 import { describe, expect, it } from 'vitest';
-import { computeSiteGeotherm } from '$lib/geotherm';
+import { computeSiteGeotherm } from '$lib/chart-data';
 import GeothermChart from './GeothermChart.svelte';
 
 // Invented site; 300 samples keep the component tests quick.
@@ -10,7 +10,7 @@ const geotherm = computeSiteGeotherm(
 );
 
 describe('GeothermChart', () => {
-	it('has an accessible title and a description naming the 150 °C depth (brief)', () => {
+	it('has an accessible title and a description naming the 150 °C depth', () => {
 		render(GeothermChart, { geotherm, title: 'Test geotherm' });
 		const svg = screen.getByRole('img');
 		expect(svg.querySelector('title')?.textContent).toBe('Test geotherm');
@@ -28,7 +28,7 @@ describe('GeothermChart', () => {
 		]);
 	});
 
-	it('draws the P10–P90 band, the P50 and central lines and isotherm markers (brief)', () => {
+	it('draws the P10–P90 band, the P50 and central lines and isotherm markers', () => {
 		const { container } = render(GeothermChart, { geotherm });
 		const band = screen.getByTestId('geotherm-band').getAttribute('d') ?? '';
 		expect(band.startsWith('M')).toBe(true);
@@ -43,7 +43,7 @@ describe('GeothermChart', () => {
 		expect(container.textContent).toContain('Depth (km)');
 	});
 
-	it('has a values table with one row per kilometre, toggled by "Show values" (brief)', async () => {
+	it('has a values table with one row per kilometre, toggled by "Show values"', async () => {
 		render(GeothermChart, { geotherm });
 		const rows = screen.getByTestId('geotherm-table').querySelectorAll('tbody tr');
 		expect(rows).toHaveLength(36); // 0…35 km
@@ -56,7 +56,7 @@ describe('GeothermChart', () => {
 		);
 	});
 
-	it('says when an isotherm is not reached above a shallow Moho and draws no marker for it (brief)', () => {
+	it('says when an isotherm is not reached above a shallow Moho and draws no marker for it', () => {
 		const shallow = computeSiteGeotherm({ heatFlowMWm2: 60 }, { samples: 200, mohoDepthKm: 8 });
 		render(GeothermChart, { geotherm: shallow });
 		const desc = screen.getByRole('img').querySelector('desc')?.textContent ?? '';

@@ -14,7 +14,7 @@ const props = { site, siteName: 'Test bore 1', samples: 200 };
 const input = (label: RegExp) => screen.getByLabelText(label) as HTMLInputElement;
 
 describe('GeothermPanel', () => {
-	it('shows the chart, key numbers, assumptions and the model caution (brief)', () => {
+	it('shows the chart, key numbers, assumptions and the model caution', () => {
 		render(GeothermPanel, props);
 		expect(screen.getByRole('img')).toBeTruthy();
 		expect(screen.getByTestId('isotherm-150').textContent).toMatch(
@@ -22,17 +22,20 @@ describe('GeothermPanel', () => {
 		);
 		expect(screen.getByTestId('isotherm-300').textContent).toContain('km');
 		expect(screen.getByTestId('moho-temperature').textContent).toContain('°C');
-		expect(screen.getByTestId('reduced-heat-flow').textContent).toContain('mW/m²');
+		expect(screen.getByTestId('mantle-heat-flow').textContent).toContain('mW/m²');
+		expect(screen.getByText(/Mantle \(basal\) heat flow/)).toBeTruthy();
+		expect(screen.queryByText(/Reduced heat flow/i)).toBeNull();
 		const assumptions = screen.getByTestId('geotherm-assumptions').textContent ?? '';
 		expect(assumptions).toContain('Steady state');
 		expect(assumptions).toContain('Surface temperature 10 °C: the site gives none');
 		expect(screen.getByLabelText('Model estimate caution')).toBeTruthy();
 	});
 
-	it('shows the error for Moho depth 0 and recovers when fixed (brief)', async () => {
+	it('shows the error for Moho depth 0 and recovers when fixed', async () => {
 		render(GeothermPanel, props);
 		await fireEvent.input(input(/Moho depth/), { target: { value: '0' } });
-		expect(screen.getByRole('alert').textContent).toContain('mohoDepthKm must be > 0; got 0');
+		expect(screen.getByRole('alert').textContent).toContain('Moho depth (km) must be > 0; got 0');
+		expect(screen.getByRole('alert').textContent).not.toContain('mohoDepthKm');
 		expect(screen.queryByRole('img')).toBeNull();
 		expect(input(/Moho depth/).getAttribute('aria-invalid')).toBe('true');
 		await fireEvent.input(input(/Moho depth/), { target: { value: '30' } });
@@ -40,11 +43,11 @@ describe('GeothermPanel', () => {
 		expect(screen.getByRole('img')).toBeTruthy();
 	});
 
-	it('shows the error for a negative conductivity, from the form or the site, and recovers (brief)', async () => {
+	it('shows the error for a negative conductivity, from the form or the site, and recovers', async () => {
 		const view = render(GeothermPanel, props);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '-2' } });
 		expect(screen.getByRole('alert').textContent).toContain(
-			'layers[0].conductivityWmK must be > 0; got -2'
+			'Upper-crust conductivity (W/m/K) must be > 0; got -2'
 		);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '2.9' } });
 		expect(screen.queryByRole('alert')).toBeNull();
@@ -56,7 +59,7 @@ describe('GeothermPanel', () => {
 		expect(input(/conductivity \(W\/m\/K\)/).value).toBe('3');
 	});
 
-	it('updates the Moho temperature when the Moho depth changes (brief)', async () => {
+	it('updates the Moho temperature when the Moho depth changes', async () => {
 		render(GeothermPanel, props);
 		const before = screen.getByTestId('moho-temperature').textContent;
 		await fireEvent.input(input(/Moho depth/), { target: { value: '42' } });
@@ -68,13 +71,13 @@ describe('GeothermPanel', () => {
 		);
 	});
 
-	it('adds a user isotherm and rejects a non-number (brief)', async () => {
+	it('adds a user isotherm and rejects a non-number', async () => {
 		render(GeothermPanel, props);
 		await fireEvent.input(input(/Extra isotherm/), { target: { value: '200' } });
 		expect(screen.getByTestId('isotherm-200').textContent).toContain('km');
 		await fireEvent.input(input(/Extra isotherm/), { target: { value: 'warm' } });
 		expect(screen.getByRole('alert').textContent).toContain(
-			'extraIsothermsC[0] must be a finite temperature'
+			'Extra isotherm (°C) must be a finite temperature; got NaN'
 		);
 	});
 });

@@ -9,7 +9,7 @@ import {
 	temperatureLogFromLas,
 	ImportFormatError
 } from '$lib/imports';
-import { heatFlowFromLog, ThermalInputError } from '$lib/thermal';
+import { heatFlowFromLog, InputError } from '$lib/thermal';
 import { qualityClass } from '$lib/sites/quality';
 import { getDb } from '$lib/server/db';
 import {
@@ -190,8 +190,7 @@ export const actions: Actions = {
 				toM
 			});
 		} catch (err) {
-			if (err instanceof ThermalInputError)
-				return fail(400, { form: 'compute', message: err.message });
+			if (err instanceof InputError) return fail(400, { form: 'compute', message: err.message });
 			throw err;
 		}
 		await db.insert(heatFlowComputation).values({

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError, temperatureAtDepthC } from '$lib/thermal';
-import { computeSiteGeotherm } from './siteGeotherm';
-import type { GeothermSite } from './siteModel';
+import { InputError, temperatureAtDepthC } from '$lib/thermal';
+import { computeSiteGeotherm } from './site-geotherm';
+import type { GeothermSite } from './site-model';
 
 // Uniform upper crust with the numbers of our own worked check (Turcotte & Schubert, Geodynamics,
 // ch. 4: T = T0 + q0 z/k − A z²/(2k)): T0 = 10 °C, q0 = 60 mW/m², k = 2.5 W/m/K, A = 1.0 µW/m³.
@@ -73,7 +73,7 @@ describe('computeSiteGeotherm', () => {
 		);
 	});
 
-	it('returns the 150 and 300 °C isotherms first, then the user one, with labels (brief)', () => {
+	it('returns the 150 and 300 °C isotherms first, then the user one, with labels', () => {
 		const g = computeSiteGeotherm(uniformSite, { ...uniform, extraIsothermsC: [200, 150] });
 		expect(g.isotherms.map((i) => i.temperatureC)).toEqual([150, 300, 200]);
 		expect(g.isotherms[0].label).toContain('power generation');
@@ -84,15 +84,15 @@ describe('computeSiteGeotherm', () => {
 		expect(Math.abs((g.isotherms[0].deterministicM as number) - z150)).toBeLessThan(2); // linear between 250 m samples
 	});
 
-	it('reports Moho temperature and reduced heat flow consistent with the energy balance (Turcotte & Schubert ch. 4)', () => {
+	it('reports Moho temperature and mantle heat flow consistent with the energy balance (Turcotte & Schubert ch. 4)', () => {
 		const g = computeSiteGeotherm(uniformSite, uniform);
-		// q_r = q0 − ∫A dz = 60 − (1.0·15 + 0.4·10 + 0.2·10) = 39 mW/m².
-		expect(g.reducedHeatFlowMWm2).toBeCloseTo(39, 9);
+		// q_m = q0 − ∫A dz = 60 − (1.0·15 + 0.4·10 + 0.2·10) = 39 mW/m².
+		expect(g.mantleHeatFlowMWm2).toBeCloseTo(39, 9);
 		expect(g.mohoTemperatureC).toBeCloseTo(g.deterministicC.at(-1) as number, 12);
 		expect(g.surfaceHeatFlowMWm2).toBe(60);
 	});
 
-	it('warns when an isotherm is not reached and passes on the core warning for negative basal heat flow (brief)', () => {
+	it('warns when an isotherm is not reached and passes on the core warning for negative basal heat flow', () => {
 		const cold = computeSiteGeotherm(
 			{ heatFlowMWm2: 30, surfaceTemperatureC: 0 },
 			{ samples: 200, extraIsothermsC: [900, -5] }
@@ -104,10 +104,10 @@ describe('computeSiteGeotherm', () => {
 		// 20 mW/m² cannot carry the ~21.5 mW/m² of default crustal heat production.
 		const negative = computeSiteGeotherm({ heatFlowMWm2: 20 }, { samples: 200 });
 		expect(negative.warnings.join('\n')).toContain('heat flow turns negative at depth');
-		expect(negative.reducedHeatFlowMWm2).toBeLessThan(0);
+		expect(negative.mantleHeatFlowMWm2).toBeLessThan(0);
 	});
 
-	it('is reproducible with the same seed and differs with another (seeded xoshiro128**, docs/thermal.md)', () => {
+	it('is reproducible with the same seed and differs with another (seeded generator; common practice, no source)', () => {
 		const a = computeSiteGeotherm({ heatFlowMWm2: 80 }, { seed: 7 });
 		const b = computeSiteGeotherm({ heatFlowMWm2: 80 }, { seed: 7 });
 		const c = computeSiteGeotherm({ heatFlowMWm2: 80 }, { seed: 8 });
@@ -117,12 +117,12 @@ describe('computeSiteGeotherm', () => {
 		expect(a.samples).toBe(2000);
 	});
 
-	it('surfaces ThermalInputError messages for bad inputs (brief)', () => {
+	it('surfaces InputError messages for bad inputs', () => {
 		expect(() => computeSiteGeotherm({ heatFlowMWm2: 60, conductivityWmK: -1 })).toThrow(
 			/layers\[0\]\.conductivityWmK must be > 0; got -1/
 		);
 		expect(() => computeSiteGeotherm({ heatFlowMWm2: 60 }, { extraIsothermsC: [NaN] })).toThrow(
-			ThermalInputError
+			InputError
 		);
 	});
 });

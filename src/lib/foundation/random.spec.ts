@@ -3,7 +3,7 @@ import { createRandom } from './random';
 import { expectClose } from './testing';
 
 // Statistical checks with tolerances of several standard errors (common practice, no source).
-describe('seeded generator (xoshiro128**, Blackman & Vigna 2018)', () => {
+describe('seeded generator (mulberry32, from memory; Box & Muller 1958 for normals)', () => {
 	it('repeats a sequence for a seed and differs between seeds', () => {
 		const a = createRandom(123);
 		const b = createRandom(123);
@@ -11,6 +11,25 @@ describe('seeded generator (xoshiro128**, Blackman & Vigna 2018)', () => {
 		const seqA = Array.from({ length: 20 }, () => a.uniform());
 		expect(Array.from({ length: 20 }, () => b.uniform())).toEqual(seqA);
 		expect(Array.from({ length: 20 }, () => c.uniform())).not.toEqual(seqA);
+	});
+
+	it('reduces any seed to 32 bits: fractions are truncated, non-finite seeds act as 0', () => {
+		const first = (seed: number) => createRandom(seed).uniform();
+		expect(first(7.9)).toBe(first(7));
+		expect(first(2 ** 32 + 5)).toBe(first(5));
+		expect(first(NaN)).toBe(first(0));
+		expect(first(Infinity)).toBe(first(0));
+	});
+
+	it('hands out uniform as a standalone function and keeps one stream for uniform and normal', () => {
+		const a = createRandom(5);
+		const u = a.uniform;
+		const b = createRandom(5);
+		expect([u(), u()]).toEqual([b.uniform(), b.uniform()]);
+		a.normal(); // consumes two uniforms, keeps its pair's second value
+		b.uniform();
+		b.uniform();
+		expect(a.uniform()).toBe(b.uniform());
 	});
 
 	it('draws uniforms in [0, 1) with mean 1/2 and variance 1/12, evenly over 10 bins', () => {

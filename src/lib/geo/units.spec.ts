@@ -1,16 +1,58 @@
 import { describe, expect, it } from 'vitest';
-import { MWM2_PER_HFU } from '../thermal/units';
+import { InputError } from '../foundation/errors';
 import {
+	convertHeatFlow,
 	findUnit,
+	hfuToMWm2,
 	KPERKM_PER_DEGF_PER_100FT,
+	kmToM,
+	kPerKmToKPerM,
+	kPerMToKPerKm,
+	mToKm,
+	MWM2_PER_HFU,
+	mWm2PerUWm3ToM,
+	mWm2ToHfu,
+	mWm2ToWm2,
 	recogniseUnit,
 	toStoredUnit,
+	uWm3ToWm3,
 	UNITS,
+	wm2ToMWm2,
+	wm3ToUWm3,
 	WMK_PER_MCAL_CM_S_K
 } from './units';
 
+describe('named converters (SI prefixes, BIPM SI Brochure 9th ed.; 1 cal = 4.184 J, NIST SP 811)', () => {
+	it('converts HFU, W/m² and mW/m² (1 HFU = 1 µcal cm⁻² s⁻¹ = 41.84 mW/m² exactly)', () => {
+		expect(hfuToMWm2(1)).toBe(41.84);
+		expect(hfuToMWm2(1.5)).toBeCloseTo(62.76, 12);
+		expect(mWm2ToHfu(83.68)).toBeCloseTo(2, 12);
+		expect(wm2ToMWm2(0.065)).toBeCloseTo(65, 12);
+		expect(mWm2ToWm2(65)).toBe(0.065);
+		expect(convertHeatFlow(0.04184, 'W/m2', 'HFU')).toBeCloseTo(1, 12);
+		expect(convertHeatFlow(12, 'HFU', 'HFU')).toBe(12);
+	});
+	it('converts heat production, depth, gradient and the heat-flow/heat-production slope', () => {
+		expect(uWm3ToWm3(2.5)).toBe(2.5e-6);
+		expect(wm3ToUWm3(2.5e-6)).toBeCloseTo(2.5, 12);
+		expect(kmToM(35)).toBe(35_000);
+		expect(mToKm(35_000)).toBe(35);
+		expect(kPerMToKPerKm(0.025)).toBe(25);
+		expect(kPerKmToKPerM(25)).toBe(0.025);
+		// (mW/m²)/(µW/m³) = 1e-3/1e-6 m: a slope of 10 is a 10 km characteristic depth.
+		expect(mWm2PerUWm3ToM(10)).toBe(10_000);
+	});
+	it('round-trips', () => {
+		for (const v of [-3, 0, 0.1, 87, 1e4]) {
+			expect(mWm2ToHfu(hfuToMWm2(v))).toBeCloseTo(v, 12);
+			expect(wm2ToMWm2(mWm2ToWm2(v))).toBeCloseTo(v, 12);
+			expect(mToKm(kmToM(v))).toBeCloseTo(v, 12);
+		}
+	});
+});
+
 describe('unit factors (each check names its source)', () => {
-	it('heat flow: 1 HFU = 41.84 mW/m² exactly, from 1 cal = 4.184 J (NIST SP 811); reuses the thermal core', () => {
+	it('heat flow: 1 HFU = 41.84 mW/m² exactly, from 1 cal = 4.184 J (NIST SP 811)', () => {
 		expect(toStoredUnit('heatFlow', 'HFU', 1)).toBe(MWM2_PER_HFU);
 		expect(toStoredUnit('heatFlow', 'HFU', 1.5)).toBeCloseTo(62.76, 12);
 		expect(toStoredUnit('heatFlow', 'W/m2', 0.065)).toBeCloseTo(65, 12);
@@ -54,5 +96,9 @@ describe('unit factors (each check names its source)', () => {
 		expect(recogniseUnit('temperature', 'DEGF')?.id).toBe('degF');
 		expect(recogniseUnit('depth', 'FT')?.id).toBe('ft');
 		expect(recogniseUnit('depth', 'furlong')).toBeUndefined();
+	});
+	it('rejects an unknown unit with an InputError naming it', () => {
+		expect(() => toStoredUnit('depth', 'furlong', 1)).toThrow(InputError);
+		expect(() => toStoredUnit('depth', 'furlong', 1)).toThrow(/furlong/);
 	});
 });

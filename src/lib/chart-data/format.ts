@@ -1,6 +1,7 @@
 // Number formatting shared by the geotherm chart, panel and table: one place decides how a
 // percentile range reads, so the chart label and the key numbers never disagree.
 
+import { mToKm } from '$lib/geo/units';
 import type { PercentileTriple } from '$lib/thermal';
 
 /** "4.2 (3.8–4.7) km" from depths in metres; an unreached percentile reads "—" or "> base". */
@@ -10,7 +11,7 @@ export function formatDepthRangeKm(
 	p90M: number | null,
 	digits = 1
 ): string {
-	const km = (m: number | null, open: string) => (m == null ? open : (m / 1000).toFixed(digits));
+	const km = (m: number | null, open: string) => (m == null ? open : mToKm(m).toFixed(digits));
 	if (p50M == null) return 'not reached';
 	return `${km(p50M, '—')} (${km(p10M, '—')}–${km(p90M, 'beyond base')}) km`;
 }

@@ -1,10 +1,16 @@
 // Everything a geotherm chart needs for one site, from the thermal core: the deterministic profile,
-// the seeded Monte Carlo band, isotherm depths, Moho temperature, reduced heat flow and warnings.
+// the seeded Monte Carlo band, isotherm depths, Moho temperature, mantle heat flow and warnings.
 // Sized for instant browser plots: 2,000 samples on a 250 m grid to 35 km take a few milliseconds.
 
+import { InputError } from '$lib/foundation/errors';
+import {
+	SITE_CHART_DEPTH_STEP_M,
+	SITE_CHART_SAMPLES,
+	SITE_CHART_SEED
+} from '$lib/foundation/limits';
+import { mToKm } from '$lib/geo/units';
 import {
 	BRITTLE_DUCTILE_QUARTZ_C,
-	ThermalInputError,
 	heatFlowSplit,
 	isothermDepthM,
 	monteCarloGeotherm,
@@ -12,14 +18,10 @@ import {
 	solveGeotherm,
 	type PercentileTriple
 } from '$lib/thermal';
-import { defaultCrustForSite, type GeothermSite, type SiteModelOptions } from './siteModel';
+import { defaultCrustForSite, type GeothermSite, type SiteModelOptions } from './site-model';
 
 /** Isotherm for electricity generation with binary plants, °C (common practice, no source). */
 export const POWER_ISOTHERM_C = 150;
-
-export const DEFAULT_SAMPLES = 2000;
-export const DEFAULT_SEED = 1;
-export const DEFAULT_DEPTH_STEP_M = 250;
 
 export interface SiteGeothermOptions extends SiteModelOptions {
 	/** Isotherms beyond 150 and 300 °C (user-chosen). */
@@ -55,9 +57,12 @@ export interface SiteGeotherm {
 	mohoTemperatureC: number;
 	mohoTemperaturePercentilesC: PercentileTriple;
 	surfaceHeatFlowMWm2: number;
-	/** Heat flow entering the crust from below the Moho (central model). */
-	reducedHeatFlowMWm2: number;
-	reducedHeatFlowPercentilesMWm2: PercentileTriple;
+	/**
+	 * Mantle (basal) heat flow: what enters the crust from below the Moho (central model). Not the
+	 * trade's "reduced heat flow", the intercept of the heat-flow / heat-production relation.
+	 */
+	mantleHeatFlowMWm2: number;
+	mantleHeatFlowPercentilesMWm2: PercentileTriple;
 	assumptions: string[];
 	warnings: string[];
 	samples: number;
@@ -79,24 +84,24 @@ export function computeSiteGeotherm(
 	const extra = options.extraIsothermsC ?? [];
 	extra.forEach((t, i) => {
 		if (typeof t !== 'number' || !Number.isFinite(t)) {
-			throw new ThermalInputError(`extraIsothermsC[${i}]`, t, 'must be a finite temperature');
+			throw new InputError(`extraIsothermsC[${i}]`, t, 'must be a finite temperature');
 		}
 	});
 	// Fixed isotherms first, then the user's, without duplicates (the chart labels by temperature).
 	const isothermsC = [...new Set([POWER_ISOTHERM_C, BRITTLE_DUCTILE_QUARTZ_C, ...extra])];
-	const input = { ...model.input, depthStepM: options.depthStepM ?? DEFAULT_DEPTH_STEP_M };
+	const input = { ...model.input, depthStepM: options.depthStepM ?? SITE_CHART_DEPTH_STEP_M };
 	const profile = solveGeotherm(input);
 	const band = monteCarloGeotherm({
 		model: input,
 		heatFlowSigmaMWm2: model.heatFlowSigmaMWm2,
 		layers: model.layerUncertainty,
-		samples: options.samples ?? DEFAULT_SAMPLES,
-		seed: options.seed ?? DEFAULT_SEED,
+		samples: options.samples ?? SITE_CHART_SAMPLES,
+		seed: options.seed ?? SITE_CHART_SEED,
 		isothermsC
 	});
 
 	const warnings = [...model.warnings, ...(profile.warnings ?? [])];
-	const mohoKm = (model.mohoDepthM / 1000).toFixed(1);
+	const mohoKm = mToKm(model.mohoDepthM).toFixed(1);
 	const isotherms = band.isotherms.map((iso): IsothermResult => {
 		const t = iso.temperatureC;
 		const deterministicM = isothermDepthM(profile, t);
@@ -132,8 +137,8 @@ export function computeSiteGeotherm(
 			p90: band.p90C[last]
 		},
 		surfaceHeatFlowMWm2: profile.surfaceHeatFlowMWm2,
-		reducedHeatFlowMWm2: split.reducedHeatFlowMWm2,
-		reducedHeatFlowPercentilesMWm2: band.basalHeatFlowMWm2,
+		mantleHeatFlowMWm2: split.heatFlowBelowMWm2,
+		mantleHeatFlowPercentilesMWm2: band.basalHeatFlowMWm2,
 		assumptions: model.assumptions,
 		warnings,
 		samples: band.samples,

@@ -1,4 +1,5 @@
-// Test helper (not exported from index.ts): float comparison with an explicit tolerance.
+// Test helpers for the pure modules' specs: float comparison with an explicit tolerance and the
+// InputError a call throws.
 import { expect } from 'vitest';
 
 /** Asserts |actual − expected| <= abs + rel·|expected|; NaN never passes. */
@@ -16,7 +17,7 @@ export function expectClose(
 	);
 }
 
-/** Runs fn and returns the ThermalInputError-like error it throws (fails if nothing is thrown). */
+/** Runs fn and returns the InputError-like error it throws (fails if nothing is thrown). */
 export function thrown(fn: () => unknown): RangeError & { field?: string } {
 	try {
 		fn();

@@ -1,16 +1,15 @@
 // Site geotherms for the UI: default crust for a site, the chart-ready computation, and the small
 // scale / format helpers the SVG components share. Pure TypeScript.
 
-export { defaultCrustForSite, SITE_MODEL_DEFAULTS, MODEL_ASSUMPTIONS } from './siteModel';
-export type { GeothermSite, SiteModel, SiteModelOptions, HeatProductionProfile } from './siteModel';
-export {
-	computeSiteGeotherm,
-	POWER_ISOTHERM_C,
-	DEFAULT_SAMPLES,
-	DEFAULT_SEED,
-	DEFAULT_DEPTH_STEP_M
-} from './siteGeotherm';
-export type { SiteGeotherm, SiteGeothermOptions, IsothermResult } from './siteGeotherm';
+export { defaultCrustForSite, SITE_MODEL_DEFAULTS, MODEL_ASSUMPTIONS } from './site-model';
+export type {
+	GeothermSite,
+	SiteModel,
+	SiteModelOptions,
+	HeatProductionProfile
+} from './site-model';
+export { computeSiteGeotherm, POWER_ISOTHERM_C } from './site-geotherm';
+export type { SiteGeotherm, SiteGeothermOptions, IsothermResult } from './site-geotherm';
 export { linearScale, niceStep, niceCeil, ticks } from './scale';
 export type { LinearScale } from './scale';
 export { formatDepthRangeKm, formatTriple } from './format';

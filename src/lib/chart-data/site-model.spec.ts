@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { ThermalInputError } from '$lib/thermal';
-import { defaultCrustForSite, SITE_MODEL_DEFAULTS, type GeothermSite } from './siteModel';
+import { InputError } from '$lib/thermal';
+import { defaultCrustForSite, SITE_MODEL_DEFAULTS, type GeothermSite } from './site-model';
 
 // Invented example site (not from any data set).
 const measured: GeothermSite = {
@@ -14,18 +14,18 @@ const measured: GeothermSite = {
 };
 const bare: GeothermSite = { heatFlowMWm2: 60 };
 
-function caught(fn: () => unknown): ThermalInputError {
+function caught(fn: () => unknown): InputError {
 	try {
 		fn();
 	} catch (e) {
-		expect(e).toBeInstanceOf(ThermalInputError);
-		return e as ThermalInputError;
+		expect(e).toBeInstanceOf(InputError);
+		return e as InputError;
 	}
-	return expect.fail('expected a ThermalInputError');
+	return expect.fail('expected a InputError');
 }
 
 describe('defaultCrustForSite', () => {
-	it('uses and lists the defaults when the site gives only heat flow (brief defaults, common practice, from memory)', () => {
+	it('uses and lists the defaults when the site gives only heat flow (typical values: common practice, from memory)', () => {
 		const m = defaultCrustForSite(bare);
 		expect(m.input.surfaceTemperatureC).toBe(10);
 		expect(m.input.surfaceHeatFlowMWm2).toBe(60);
@@ -40,15 +40,15 @@ describe('defaultCrustForSite', () => {
 		expect(m.layerUncertainty[2].heatProductionSigmaUWm3).toBeCloseTo(0.02, 12);
 		const text = m.assumptions.join('\n');
 		expect(text).toContain('Surface temperature 10 °C: the site gives none');
-		expect(text).toContain('10 % assumed');
-		expect(text).toContain('2 µW/m³ (default: the site gives none)');
-		expect(text).toContain('2.5 W/m/K (default: the site gives none)');
+		expect(text).toContain('10 % assumed (a typical value)');
+		expect(text).toContain('2 µW/m³ (the site gives none; a typical value)');
+		expect(text).toContain('2.5 W/m/K (the site gives none; a typical value)');
 		expect(text).toContain('Steady state');
 		expect(text).toContain('No advection');
 		expect(m.mohoDepthM).toBe(35_000);
 	});
 
-	it('takes measured site values and their sigmas for the upper crust (brief)', () => {
+	it('takes measured site values and their sigmas for the upper crust', () => {
 		const m = defaultCrustForSite(measured);
 		expect(m.input.surfaceTemperatureC).toBe(7.5);
 		expect(m.input.layers[0]).toMatchObject({ conductivityWmK: 3.1, heatProductionUWm3: 2.6 });
@@ -60,7 +60,7 @@ describe('defaultCrustForSite', () => {
 		expect(m.assumptions.join('\n')).toContain('Surface temperature 7.5 °C (site value)');
 	});
 
-	it('lets options override site values and say so (brief)', () => {
+	it('lets options override site values and say so', () => {
 		const m = defaultCrustForSite(measured, {
 			surfaceTemperatureC: 12,
 			upperCrustHeatProductionUWm3: 1.2,
@@ -79,10 +79,11 @@ describe('defaultCrustForSite', () => {
 		const text = m.assumptions.join('\n');
 		expect(text).toContain('(entered)');
 		expect(text).toContain(', uniform;');
-		expect(text).toContain('b = 0.001 /K');
+		expect(text).toContain('b = 0.001 per °C, a typical value for crystalline rock');
+		expect(text).not.toContain('from memory');
 	});
 
-	it('cuts the layers at a shallow Moho and extends the lower crust to a deep one (brief)', () => {
+	it('cuts the layers at a shallow Moho and extends the lower crust to a deep one', () => {
 		expect(
 			defaultCrustForSite(bare, { mohoDepthKm: 20 }).input.layers.map((l) => l.thicknessM)
 		).toEqual([15_000, 5_000]);
@@ -94,7 +95,7 @@ describe('defaultCrustForSite', () => {
 		).toEqual([15_000, 10_000, 20_000]);
 	});
 
-	it('throws ThermalInputError naming the field for bad values (brief)', () => {
+	it('throws InputError naming the field for bad values', () => {
 		expect(caught(() => defaultCrustForSite(bare, { mohoDepthKm: 0 })).field).toBe('mohoDepthKm');
 		expect(caught(() => defaultCrustForSite(bare, { mohoDepthKm: NaN })).message).toContain(
 			'finite'

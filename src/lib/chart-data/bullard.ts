@@ -9,6 +9,7 @@ import {
 	type ConductivityInterval,
 	type HeatFlowEstimate
 } from '$lib/thermal';
+import { kPerKmToKPerM, mWm2ToWm2 } from '$lib/geo/units';
 
 export interface BoreholeLogInput {
 	depthM: number[];
@@ -32,7 +33,7 @@ export interface BullardChartData {
 	estimate: HeatFlowEstimate;
 }
 
-/** Points and fitted line for one mode; throws ThermalInputError like the core. */
+/** Points and fitted line for one mode; throws InputError like the core. */
 export function bullardChartData(input: BoreholeLogInput, mode: BullardMode): BullardChartData {
 	const plot = bullardPlot(input); // validates and windows the log
 	if (mode === 'resistance') {
@@ -40,7 +41,7 @@ export function bullardChartData(input: BoreholeLogInput, mode: BullardMode): Bu
 		const r = plot.thermalResistanceM2KW;
 		const rMax = r[r.length - 1];
 		// T = T(R=0) + q R, q in W/m² (= K per m²K/W).
-		const qWm2 = estimate.heatFlowMWm2 / 1000;
+		const qWm2 = mWm2ToWm2(estimate.heatFlowMWm2);
 		return {
 			mode,
 			positions: r,
@@ -69,7 +70,7 @@ export function bullardChartData(input: BoreholeLogInput, mode: BullardMode): Bu
 			fromPosition: top,
 			fromC: fit.interceptC,
 			toPosition: bottom,
-			toC: fit.interceptC + (fit.gradientKPerKm / 1000) * (bottom - top)
+			toC: fit.interceptC + kPerKmToKPerM(fit.gradientKPerKm) * (bottom - top)
 		},
 		estimate
 	};

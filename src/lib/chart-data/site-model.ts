@@ -3,8 +3,11 @@
 // site does not give is an assumption; each is listed in words so the UI can show it beside the plot.
 // Pure TypeScript: no SvelteKit, DB, Node or DOM imports (runs in the browser for instant plots).
 
-import { ThermalInputError, type CrustLayer, type GeothermInput } from '$lib/thermal';
-import type { LayerUncertainty } from '$lib/thermal';
+import { InputError } from '$lib/foundation/errors';
+import { MAX_MOHO_DEPTH_KM } from '$lib/foundation/limits';
+import { requireFinite, requireNonNegative, requirePositive } from '$lib/foundation/validate';
+import { kmToM } from '$lib/geo/units';
+import type { CrustLayer, GeothermInput, LayerUncertainty } from '$lib/thermal';
 
 /** The site values the geotherm needs (mW/m², W/m/K, µW/m³, °C, m); null = not measured. */
 export interface GeothermSite {
@@ -59,9 +62,6 @@ export const SITE_MODEL_DEFAULTS = {
 	relativeSigma: 0.1
 } as const;
 
-/** Deepest Moho accepted (km): thickest continental crust is well below this (common practice, from memory). */
-export const MAX_MOHO_DEPTH_KM = 100;
-
 export interface SiteModel {
 	input: GeothermInput;
 	heatFlowSigmaMWm2: number;
@@ -75,7 +75,7 @@ export interface SiteModel {
 	warnings: string[];
 }
 
-/** The fixed model assumptions, always shown (docs/thermal.md). */
+/** The fixed model assumptions, always shown (docs/science.md, "Site geotherm"). */
 export const MODEL_ASSUMPTIONS = [
 	'Steady state: no transients (recent erosion, burial, climate change or intrusions are ignored).',
 	'One-dimensional conduction: horizontal layers, vertical heat flow only, no topography.',
@@ -83,41 +83,31 @@ export const MODEL_ASSUMPTIONS = [
 	'Assumed crustal structure: a three-layer continental crust, not a local model.'
 ];
 
-function requireNumber(field: string, value: number, requirement: 'positive' | 'finite'): void {
-	if (typeof value !== 'number' || !Number.isFinite(value)) {
-		throw new ThermalInputError(field, value, 'must be a finite number');
-	}
-	if (requirement === 'positive' && !(value > 0)) {
-		throw new ThermalInputError(field, value, 'must be > 0');
-	}
-}
-
 // Up to `digits` decimals without trailing zeros: 2 → "2", 2.5 → "2.5", 2.567 → "2.57" (digits 2).
 const fmt = (v: number, digits = 1) => String(Number(v.toFixed(digits)));
 
-/** Builds the default three-layer crust for a site; throws ThermalInputError on bad values. */
+/** Builds the default three-layer crust for a site; throws InputError on bad values. */
 export function defaultCrustForSite(site: GeothermSite, options: SiteModelOptions = {}): SiteModel {
 	const D = SITE_MODEL_DEFAULTS;
 	const assumptions: string[] = [...MODEL_ASSUMPTIONS];
 	const warnings: string[] = [];
 	const rel = options.defaultRelativeSigma ?? D.relativeSigma;
-	requireNumber('defaultRelativeSigma', rel, 'finite');
-	if (rel < 0) throw new ThermalInputError('defaultRelativeSigma', rel, 'must be >= 0');
+	requireNonNegative('defaultRelativeSigma', rel);
 
 	if (site.heatFlowMWm2 == null) {
-		throw new ThermalInputError('heatFlowMWm2', null, 'must be measured to draw a geotherm');
+		throw new InputError('heatFlowMWm2', null, 'must be measured to draw a geotherm');
 	}
-	requireNumber('heatFlowMWm2', site.heatFlowMWm2, 'positive');
+	requirePositive('heatFlowMWm2', site.heatFlowMWm2);
 	const q0 = site.heatFlowMWm2;
 
 	const mohoKm = options.mohoDepthKm ?? D.mohoDepthKm;
-	requireNumber('mohoDepthKm', mohoKm, 'positive');
+	requirePositive('mohoDepthKm', mohoKm);
 	// A crustal model; the cap also keeps a typo (35000 for 35) from freezing the browser.
 	if (mohoKm > MAX_MOHO_DEPTH_KM) {
-		throw new ThermalInputError('mohoDepthKm', mohoKm, `must be at most ${MAX_MOHO_DEPTH_KM} km`);
+		throw new InputError('mohoDepthKm', mohoKm, `must be at most ${MAX_MOHO_DEPTH_KM} km`);
 	}
 	const decayKm = options.heatProductionDecayKm ?? D.heatProductionDecayKm;
-	requireNumber('heatProductionDecayKm', decayKm, 'positive');
+	requirePositive('heatProductionDecayKm', decayKm);
 
 	// Surface temperature: option, then site, then 10 °C.
 	let t0: number = D.surfaceTemperatureC;
@@ -129,10 +119,10 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 		assumptions.push(`Surface temperature ${fmt(t0)} °C (site value).`);
 	} else {
 		assumptions.push(
-			`Surface temperature ${D.surfaceTemperatureC} °C: the site gives none; a common default for mid-latitude land sites.`
+			`Surface temperature ${D.surfaceTemperatureC} °C: the site gives none; a typical value for mid-latitude land sites.`
 		);
 	}
-	requireNumber('surfaceTemperatureC', t0, 'finite');
+	requireFinite('surfaceTemperatureC', t0);
 	if (site.waterDepthM != null && site.waterDepthM > 0) {
 		assumptions.push(
 			`Marine site: depths are below the seafloor (water depth ${fmt(site.waterDepthM, 0)} m); the surface temperature is the bottom-water temperature.`
@@ -152,7 +142,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 	if (sigmaQ == null) {
 		sigmaQ = Math.abs(q0) * rel;
 		assumptions.push(
-			`Surface heat flow ${fmt(q0)} mW/m² (site) ± ${fmt(sigmaQ)}: no uncertainty given, ${fmt(rel * 100)} % assumed.`
+			`Surface heat flow ${fmt(q0)} mW/m² (site) ± ${fmt(sigmaQ)}: no uncertainty given, ${fmt(rel * 100)} % assumed (a typical value).`
 		);
 	} else {
 		assumptions.push(`Surface heat flow ${fmt(q0)} ± ${fmt(sigmaQ)} mW/m² (site).`);
@@ -166,7 +156,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			? 'entered'
 			: site.heatProductionUWm3 != null
 				? 'site'
-				: 'default: the site gives none';
+				: 'the site gives none; a typical value';
 	const kUpper = options.upperCrustConductivityWmK ?? site.conductivityWmK ?? null;
 	const k0 = kUpper ?? D.upperCrustConductivityWmK;
 	const kSource =
@@ -174,7 +164,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			? 'entered'
 			: site.conductivityWmK != null
 				? 'site'
-				: 'default: the site gives none';
+				: 'the site gives none; a typical value';
 	const profile = options.upperCrustHeatProductionProfile ?? D.upperCrustHeatProductionProfile;
 	const b = options.temperatureDependentConductivity ? D.conductivityTempCoeffPerK : undefined;
 
@@ -186,7 +176,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 			baseKm: D.upperCrustBaseKm,
 			k: k0,
 			a: a0,
-			decay: profile === 'exponential' ? decayKm * 1000 : undefined,
+			decay: profile === 'exponential' ? kmToM(decayKm) : undefined,
 			b: undefined as number | undefined
 		},
 		{
@@ -211,7 +201,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 
 	const layers: CrustLayer[] = spec.map((l) => {
 		const layer: CrustLayer = {
-			thicknessM: (Math.min(l.baseKm, mohoKm) - l.topKm) * 1000,
+			thicknessM: kmToM(Math.min(l.baseKm, mohoKm) - l.topKm),
 			conductivityWmK: l.k,
 			heatProductionUWm3: l.a
 		};
@@ -232,7 +222,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 
 	const upperBaseKm = Math.min(D.upperCrustBaseKm, mohoKm);
 	assumptions.push(
-		`Moho at ${fmt(mohoKm)} km${options.mohoDepthKm != null ? ' (entered)' : ' (default for continental crust)'}; the model ends there.`,
+		`Moho at ${fmt(mohoKm)} km${options.mohoDepthKm != null ? ' (entered)' : ' (a typical value for continental crust)'}; the model ends there.`,
 		`Upper crust 0–${fmt(upperBaseKm)} km: heat production ${fmt(a0, 2)} µW/m³ (${aSource})` +
 			(profile === 'exponential'
 				? ` at the surface, decaying exponentially with a ${fmt(decayKm)} km length scale`
@@ -241,19 +231,19 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 	);
 	if (mohoKm > D.upperCrustBaseKm) {
 		assumptions.push(
-			`Middle crust ${D.upperCrustBaseKm}–${fmt(Math.min(D.middleCrustBaseKm, mohoKm))} km: ${D.middleCrustHeatProductionUWm3} µW/m³, ${D.middleCrustConductivityWmK} W/m/K (assumed).`
+			`Middle crust ${D.upperCrustBaseKm}–${fmt(Math.min(D.middleCrustBaseKm, mohoKm))} km: ${D.middleCrustHeatProductionUWm3} µW/m³, ${D.middleCrustConductivityWmK} W/m/K (typical values).`
 		);
 	}
 	if (mohoKm > D.middleCrustBaseKm) {
 		assumptions.push(
-			`Lower crust ${D.middleCrustBaseKm}–${fmt(mohoKm)} km: ${D.lowerCrustHeatProductionUWm3} µW/m³, ${D.lowerCrustConductivityWmK} W/m/K (assumed).`
+			`Lower crust ${D.middleCrustBaseKm}–${fmt(mohoKm)} km: ${D.lowerCrustHeatProductionUWm3} µW/m³, ${D.lowerCrustConductivityWmK} W/m/K (typical values).`
 		);
 	}
 	assumptions.push(
 		b != null
-			? `Conductivity of the middle and lower crust falls with temperature, k = k0/(1 + bT), b = ${b} /K (common practice, from memory); the upper crust keeps its measured value.`
+			? `Conductivity of the middle and lower crust falls as the rock warms: k = k0/(1 + b·T) with b = ${b} per °C, a typical value for crystalline rock; the upper crust keeps its measured value.`
 			: 'Conductivity constant with temperature (it usually falls with temperature in crystalline rock, so deep temperatures may be underestimated).',
-		`Uncertainty: values without a given standard deviation get ${fmt(rel * 100)} %; layer thicknesses are fixed.`
+		`Uncertainty: values without a given standard deviation get ${fmt(rel * 100)} % (a typical value); layer thicknesses are fixed.`
 	);
 
 	return {
@@ -261,7 +251,7 @@ export function defaultCrustForSite(site: GeothermSite, options: SiteModelOption
 		heatFlowSigmaMWm2: sigmaQ,
 		layerUncertainty,
 		layerNames,
-		mohoDepthM: mohoKm * 1000,
+		mohoDepthM: kmToM(mohoKm),
 		assumptions,
 		warnings
 	};
