@@ -1,5 +1,5 @@
 import { env } from '$env/dynamic/private';
-import { parseEnv, type AppEnv } from './env-schema';
+import { parseEnv, type AppEnv } from './env-schema.js';
 
 let cached: AppEnv | undefined;
 

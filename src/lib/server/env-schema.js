@@ -1,10 +1,13 @@
 import { z } from 'zod';
 
+// @ts-check
 /**
- * The app's environment, validated once at boot. Kept free of SvelteKit imports so scripts and
- * tests can validate a plain object with the same rules.
+ * The app's environment: one schema for the app (validated at boot by src/lib/server/config.ts)
+ * and the orchestration scripts (scripts/lib/validate-env.js, before anything starts). Plain
+ * JavaScript with JSDoc, free of SvelteKit imports, so `node scripts/…` can import it as it is.
  */
-const url = (protocols: string[]) =>
+/** @param {string[]} protocols */
+const url = (protocols) =>
 	z
 		.string()
 		.url({ message: 'must be a URL' })
@@ -30,6 +33,13 @@ export const envSchema = z
 		MAIL_FROM: z.string().min(3).default('Thermalith <no-reply@thermalith.local>'),
 		MAIL_VIEWER_URL: url(['http:', 'https:']).optional(),
 		ORIGIN: url(['http:', 'https:']).optional(),
+		PORT: z.coerce
+			.number({ message: 'must be a port number between 1 and 65535' })
+			.int()
+			.min(1)
+			.max(65535)
+			.optional(),
+		PUBLIC_TILE_URL: url(['http:', 'https:']).optional(),
 		BETTER_AUTH_SECRET: z.string().min(32, { message: 'must be at least 32 characters' }),
 		ATTACHMENT_MAX_BYTES: z.coerce
 			.number()
@@ -47,15 +57,33 @@ export const envSchema = z
 		path: ['SMTP_URL']
 	});
 
-export type AppEnv = z.infer<typeof envSchema>;
+/** @typedef {z.infer<typeof envSchema>} AppEnv */
 
-/** Parse the environment or throw one error that lists every bad variable by name. */
-export function parseEnv(source: Record<string, string | undefined>): AppEnv {
+/**
+ * Every problem of an environment, one line each naming the variable; empty when it is usable.
+ * @param {Record<string, string | undefined>} source
+ * @returns {string[]}
+ */
+export function envProblems(source) {
 	const result = envSchema.safeParse(source);
-	if (result.success) return result.data;
-	const lines = result.error.issues.map((issue) => {
+	if (result.success) return [];
+	return result.error.issues.map((issue) => {
 		const name = issue.path.join('.') || 'environment';
-		return `  - ${name}: ${issue.code === 'invalid_type' ? 'is not set' : issue.message}`;
+		return `${name}: ${issue.code === 'invalid_type' ? 'is not set' : issue.message}`;
 	});
-	throw new Error(`Thermalith cannot start; fix these environment variables:\n${lines.join('\n')}`);
+}
+
+/**
+ * Parse the environment or throw one error that lists every bad variable by name.
+ * @param {Record<string, string | undefined>} source
+ * @returns {AppEnv}
+ */
+export function parseEnv(source) {
+	const problems = envProblems(source);
+	if (problems.length) {
+		throw new Error(
+			`Thermalith cannot start; fix these environment variables:\n${problems.map((p) => `  - ${p}`).join('\n')}`
+		);
+	}
+	return envSchema.parse(source);
 }
