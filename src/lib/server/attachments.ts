@@ -11,11 +11,13 @@ import { and, eq } from 'drizzle-orm';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import { safeFileName, sniffFile } from '$lib/files/sniff';
-import type { Viewer } from './access';
+import { notFound, type Viewer } from './access';
 import { config } from './config';
 import type { Db } from './db/client';
 import { attachment, site } from './db/schema';
-import { datasetForViewer, requireUpload } from './repositories/dataset-access';
+import { requireUpload } from './guards';
+import { attachmentForChange, readyAttachmentForViewer } from './repositories/attachments';
+import { datasetForViewer } from './repositories/datasets';
 import { bucket, s3 } from './storage';
 
 const UPLOAD_URL_SECONDS = 15 * 60;
@@ -71,14 +73,6 @@ async function readObject(key: string): Promise<Buffer> {
 	return Buffer.from(await res.Body!.transformToByteArray());
 }
 
-async function pendingAttachment(db: Db, viewer: Viewer, id: string) {
-	const [row] = await db.select().from(attachment).where(eq(attachment.id, id));
-	if (!row) error(404, 'No such file.');
-	const found = await datasetForViewer(db, viewer, row.datasetId);
-	requireUpload(found);
-	return row;
-}
-
 /** Remove a file's objects and row (used when a check fails and on delete). */
 async function discard(
 	db: Db,
@@ -99,7 +93,7 @@ async function discard(
  * a check is deleted again, so nothing half-accepted stays behind.
  */
 export async function completeAttachmentUpload(db: Db, viewer: Viewer, id: string) {
-	const row = await pendingAttachment(db, viewer, id);
+	const row = await attachmentForChange(db, viewer, id, 'complete');
 	if (row.status === 'ready') return row;
 	const head = await s3()
 		.send(new HeadObjectCommand({ Bucket: bucket(), Key: row.objectKey }))
@@ -160,15 +154,9 @@ export async function attachmentDownloadUrl(
 	id: string,
 	variant: 'file' | 'thumbnail'
 ) {
-	if (!/^[0-9a-f-]{36}$/i.test(id)) error(404, 'No such file.');
-	const [row] = await db
-		.select()
-		.from(attachment)
-		.where(and(eq(attachment.id, id), eq(attachment.status, 'ready')));
-	if (!row) error(404, 'No such file.');
-	await datasetForViewer(db, viewer, row.datasetId); // 404s when the dataset is not visible
+	const row = await readyAttachmentForViewer(db, viewer, id);
 	const key = variant === 'thumbnail' ? row.thumbnailKey : row.objectKey;
-	if (!key) error(404, 'This file has no preview.');
+	if (!key) notFound();
 	const disposition = `${variant === 'thumbnail' ? 'inline' : 'attachment'}; filename*=UTF-8''${encodeURIComponent(row.fileName)}`;
 	return getSignedUrl(
 		s3(),
@@ -184,6 +172,6 @@ export async function attachmentDownloadUrl(
 }
 
 export async function deleteAttachment(db: Db, viewer: Viewer, id: string) {
-	const row = await pendingAttachment(db, viewer, id);
+	const row = await attachmentForChange(db, viewer, id, 'delete');
 	await discard(db, row);
 }

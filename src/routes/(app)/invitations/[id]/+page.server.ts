@@ -10,15 +10,19 @@ export const load: PageServerLoad = async (event) => {
 	const user = requireUser(event);
 	const invitation = await findInvitation(getDb(), event.params.id);
 	if (!invitation) error(404, 'No such invitation.');
+	// Only the invited address learns what the invitation is (organisation, role, state);
+	// anyone else holding the link learns only that it is not theirs.
+	if (invitation.email.toLowerCase() !== user.email.toLowerCase()) {
+		return { invitation: { forMe: false as const } };
+	}
 	return {
 		invitation: {
+			forMe: true as const,
 			organisationName: invitation.organisationName,
 			organisationSlug: invitation.organisationSlug,
 			role: invitation.role,
 			status: invitation.status,
-			expired: invitation.expiresAt < new Date(),
-			// The address is shown only to its owner; others learn that it is not theirs.
-			forMe: invitation.email.toLowerCase() === user.email.toLowerCase()
+			expired: invitation.expiresAt < new Date()
 		}
 	};
 };
