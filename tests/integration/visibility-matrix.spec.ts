@@ -87,6 +87,15 @@ const CHANGERS: Record<string, Kind[]> = {
 	retired: []
 };
 
+/** Lifecycle transitions allowed per starting state (lifecycle.spec.ts runs the allowed ones). */
+const REVIEWERS: Kind[] = ['curator', 'owner'];
+const TRANSITIONS: Record<string, Record<string, Kind[]>> = {
+	submit: { draft: CHANGERS.draft, returned: CHANGERS.returned },
+	return: { in_review: REVIEWERS },
+	publish: { in_review: REVIEWERS },
+	retire: { published: REVIEWERS }
+};
+
 const sees = (k: Kind, c: CaseName) => CASES[c].everyone || MEMBERS.includes(k);
 const changes = (k: Kind, c: CaseName) => CHANGERS[CASES[c].status].includes(k);
 
@@ -175,6 +184,8 @@ async function expectHidden(res: Response) {
 type Check = { name: string; run: (k: Kind, c: CaseName) => Promise<void> };
 type Row = { checks: Check[] } | { none: string };
 
+const statusOf = async (id: string) =>
+	(await db.select({ s: dataset.status }).from(dataset).where(eq(dataset.id, id)))[0].s;
 const get = (k: Kind, p: string) => clients[k].get(p);
 const text = async (k: Kind, p: string) => (await get(k, p)).text();
 
@@ -259,6 +270,19 @@ const ROUTES: Record<string, Row> = {
 					expect(body.includes(ids[c].file)).toBe(sees(k, c));
 					// Import history is the organisation's business, even on public datasets.
 					expect(body.includes(ids[c].batch)).toBe(sees(k, c) && MEMBERS.includes(k));
+				}
+			},
+			{
+				name: 'lifecycle actions (?/submit, ?/return, ?/publish, ?/retire) that must be refused',
+				run: async (k, c) => {
+					for (const [name, from] of Object.entries(TRANSITIONS)) {
+						if (from[CASES[c].status]?.includes(k)) continue;
+						const res = await clients[k].post(`/datasets/${ids[c].dataset}?/${name}`, {
+							comment: 'matrix'
+						});
+						expect(writeStatus(k, c, false, 200), name).toContain(res.status);
+					}
+					expect(await statusOf(ids[c].dataset)).toBe(CASES[c].status);
 				}
 			},
 			{

@@ -53,6 +53,19 @@ export const mailTemplates = {
 			{ label: 'Approve the change', url },
 			'If you did not ask for this, ignore this message and your address stays as it is; consider changing your password.'
 		),
+	/** A dataset moved through its lifecycle (see access/lifecycle.ts); comment on returns. */
+	datasetTransition: (
+		d: { title: string; organisationName: string },
+		event: { actorName: string; past: string; comment: string | null },
+		url: string
+	) =>
+		compose(
+			`"${d.title}" was ${event.past}`,
+			`${event.actorName} ${event.past} the dataset "${d.title}" of ${d.organisationName}.` +
+				(event.comment ? ` Their comment: ${event.comment}` : ''),
+			{ label: 'Open the dataset', url },
+			'You receive this because you work on this dataset or review datasets for the organisation.'
+		),
 	invitation: (organisation: string, inviter: string, role: string, url: string) =>
 		compose(
 			`Invitation to join ${organisation}`,
