@@ -232,6 +232,24 @@ describe('two curators publishing at once', () => {
 });
 
 describe('the audit log', () => {
+	it('records metadata edits with the fields that changed', async () => {
+		const d = await datasetIn('draft', 'Edited');
+		const res = await clients.contributor.post(`/datasets/${d.id}?/update`, {
+			title: `${d.title} (edited)`,
+			abstract: '',
+			keywords: '',
+			licence: 'CC-BY-4.0',
+			citation: 'Korvald Geological Survey (2026). Edited. Thermalith demo.',
+			doi: '',
+			visibility: 'public',
+			embargoUntil: ''
+		});
+		expect(res.status).toBe(200);
+		const [edit] = await auditOf(d.id);
+		expect(edit).toMatchObject({ action: 'edit', actorEmail: EMAIL.contributor });
+		expect((edit.details as { fields: string[] }).fields.sort()).toEqual(['citation', 'title']);
+	});
+
 	it('is append-only: the database refuses to change or delete a row', async () => {
 		const d = await datasetIn('draft', 'Append only');
 		await clients.contributor.post(`/datasets/${d.id}?/submit`, {});

@@ -188,11 +188,25 @@ export async function updateDatasetMetadata(
 	fields: DatasetFields
 ): Promise<boolean> {
 	if (!found.can.editMetadata) return false;
-	const updated = await db
-		.update(dataset)
-		// Only while the state it was checked in holds: a concurrent submit or publish wins.
-		.set({ ...fields, updatedBy: viewer.userId, updatedAt: new Date() })
-		.where(and(eq(dataset.id, found.dataset.id), eq(dataset.status, found.dataset.status)))
-		.returning({ id: dataset.id });
-	return updated.length === 1;
+	const before = found.dataset as Record<string, unknown>;
+	const changed = Object.keys(fields).filter(
+		(k) =>
+			JSON.stringify(before[k] ?? null) !== JSON.stringify(fields[k as keyof DatasetFields] ?? null)
+	);
+	return db.transaction(async (tx) => {
+		const updated = await tx
+			.update(dataset)
+			// Only while the state it was checked in holds: a concurrent submit or publish wins.
+			.set({ ...fields, updatedBy: viewer.userId, updatedAt: new Date() })
+			.where(and(eq(dataset.id, found.dataset.id), eq(dataset.status, found.dataset.status)))
+			.returning({ id: dataset.id });
+		if (updated.length !== 1) return false;
+		await recordAudit(tx, viewer, {
+			action: 'edit',
+			organisationId: found.dataset.organisationId,
+			datasetId: found.dataset.id,
+			details: { fields: changed }
+		});
+		return true;
+	});
 }
