@@ -81,6 +81,33 @@ export default ts.config(
 		}
 	},
 	{
+		// Routes call repositories (src/lib/server/repositories) with the viewer; the access layer
+		// decides what they may see. No query is written in a route.
+		files: ['src/routes/**'],
+		rules: {
+			'no-restricted-imports': [
+				'error',
+				{
+					patterns: [
+						{
+							group: ['drizzle-orm', 'drizzle-orm/*'],
+							message: 'Routes call repositories in $lib/server/repositories instead.'
+						},
+						{
+							group: [
+								'$lib/server/db/schema',
+								'$lib/server/db/schema/*',
+								'**/db/schema',
+								'**/db/schema/*'
+							],
+							message: 'Routes call repositories in $lib/server/repositories instead.'
+						}
+					]
+				}
+			]
+		}
+	},
+	{
 		files: ['**/*.svelte', '**/*.svelte.ts', '**/*.svelte.js'],
 		languageOptions: {
 			parserOptions: {

@@ -85,6 +85,21 @@ export const datasets: (NewDataset & { key: string })[] = [
 		visibility: 'embargoed',
 		// Always six months after seeding, so the demo keeps one dataset under embargo.
 		embargoUntil: new Date(Date.now() + 182 * 86_400_000).toISOString().slice(0, 10)
+	},
+	{
+		// Waiting for a curator, so the demo curator has something to review (no sites yet, so
+		// the public figures above do not change).
+		key: 'review',
+		id: '5a0c1d3e-0000-4000-8000-000000000004',
+		organisationId: 'org-korvald-survey',
+		title: 'Korvald Basin shallow boreholes, 2025 campaign',
+		abstract:
+			'Temperature logs of the 2025 shallow drilling campaign, awaiting review. ' + DEMO_NOTICE,
+		keywords: ['heat flow', 'shallow boreholes'],
+		licence: 'CC-BY-4.0',
+		version: 1,
+		status: 'in_review',
+		visibility: 'public'
 	}
 ];
 

@@ -95,7 +95,7 @@ describe('uploading sites and files, as a contributor would do it', () => {
 		await page.waitForURL(/\/datasets\/[0-9a-f-]{36}$/);
 		const datasetUrl = page.url();
 		await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(title);
-		await expect(page.getByTestId('dataset-status').textContent()).resolves.toBe('draft');
+		await expect(page.getByTestId('dataset-status').textContent()).resolves.toBe('Draft');
 
 		// The import wizard, with the example file as it is.
 		await page.getByRole('link', { name: 'Import sites from a file' }).click();

@@ -43,3 +43,13 @@ export const newDatasetSchema = z.intersection(
 	datasetSchema,
 	z.object({ organisationId: z.string().min(1, 'Choose the organisation that publishes it.') })
 );
+
+/** The comment of a lifecycle transition; required to return a dataset (checked by the server). */
+export const transitionSchema = z.object({
+	comment: z
+		.string()
+		.trim()
+		.max(2000, 'Keep the comment under 2,000 characters.')
+		.default('')
+		.transform((v) => (v === '' ? null : v))
+});

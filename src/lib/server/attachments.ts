@@ -1,17 +1,25 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand } from '@aws-sdk/client-s3';
 import { error } from '@sveltejs/kit';
-import { and, eq } from 'drizzle-orm';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import { safeFileName, sniffFile } from '$lib/files/sniff';
-import type { Viewer } from './access';
+import { notFound, type Viewer } from './access';
 import { config } from './config';
 import type { Db } from './db/client';
-import { attachment, site } from './db/schema';
 import { checkedStream } from './files/checked-stream';
 import { readBodyUpTo } from './files/read-body';
-import { datasetForViewer, requireUpload } from './repositories/dataset-access';
+import { requireUpload } from './guards';
+import {
+	addPendingAttachment,
+	attachmentForChange,
+	deleteAttachmentRow,
+	forgetPendingAttachment,
+	markAttachmentReady,
+	readyAttachmentForViewer,
+	type ChangeableAttachment
+} from './repositories/attachments';
+import { datasetForViewer } from './repositories/datasets';
 import { bucket, s3 } from './storage';
 
 /*
@@ -20,16 +28,12 @@ import { bucket, s3 } from './storage';
  * in one step, and they read files back through the app after the access check. So there is no
  * presigned URL that could be replayed to swap a checked file, the store needs no CORS rule and
  * no port reachable from other machines, and a remote browser works like a local one.
+ * Who may do what with a file is decided by the access layer (repositories/attachments.ts);
+ * this module only moves and checks the bytes.
  */
 
 const THUMBNAIL_PX = 320;
 const MB = 1024 * 1024;
-
-function requireAttachmentId(id: string) {
-	if (!/^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id)) {
-		error(404, 'No such file.');
-	}
-}
 
 /** Where the browser sends a file's bytes: a path on the app's own origin. */
 export const contentPath = (id: string) => `/api/v1/attachments/${id}/content`;
@@ -50,39 +54,17 @@ export async function startAttachmentUpload(
 			`The file is ${(input.sizeBytes / MB).toFixed(1)} MB; the limit is ${(max / MB).toFixed(0)} MB.`
 		);
 	}
-	if (input.siteId) {
-		const [s] = await db
-			.select({ id: site.id })
-			.from(site)
-			.where(and(eq(site.id, input.siteId), eq(site.datasetId, input.datasetId)));
-		if (!s) error(404, 'No such site in this dataset.');
-	}
-	const [row] = await db
-		.insert(attachment)
-		.values({
-			datasetId: input.datasetId,
-			siteId: input.siteId ?? null,
-			objectKey: newObjectKey(input.datasetId, input.fileName),
-			fileName: input.fileName.slice(0, 255),
-			sizeBytes: input.sizeBytes,
-			uploadedBy: viewer.userId
-		})
-		.returning({ id: attachment.id });
+	const row = await addPendingAttachment(db, viewer, found, {
+		siteId: input.siteId,
+		fileName: input.fileName,
+		sizeBytes: input.sizeBytes,
+		objectKey: newObjectKey(input.datasetId, input.fileName)
+	});
 	return { id: row.id, uploadUrl: contentPath(row.id) };
 }
 
 function newObjectKey(datasetId: string, fileName: string) {
 	return `datasets/${datasetId}/${randomUUID()}/${safeFileName(fileName)}`;
-}
-
-/** A file the viewer may upload to (announced by them, dataset open to their uploads). */
-async function uploadableAttachment(db: Db, viewer: Viewer, id: string) {
-	requireAttachmentId(id);
-	const [row] = await db.select().from(attachment).where(eq(attachment.id, id));
-	if (!row) error(404, 'No such file.');
-	const found = await datasetForViewer(db, viewer, row.datasetId);
-	requireUpload(found);
-	return row;
 }
 
 async function removeObjects(keys: (string | null)[]) {
@@ -95,20 +77,9 @@ async function removeObjects(keys: (string | null)[]) {
 }
 
 /** Remove a file's objects and row (used when a check fails and on delete). */
-async function discard(
-	db: Db,
-	row: { id: string; objectKey: string; thumbnailKey: string | null }
-) {
+async function discard(db: Db, row: ChangeableAttachment) {
 	await removeObjects([row.objectKey, row.thumbnailKey]);
-	await db.delete(attachment).where(eq(attachment.id, row.id));
-}
-
-/**
- * Forget a file that failed during its upload. Only while it is still pending: a racing upload of
- * the same file that already succeeded is left alone. Nothing was stored under its key yet.
- */
-async function discardPending(db: Db, id: string) {
-	await db.delete(attachment).where(and(eq(attachment.id, id), eq(attachment.status, 'pending')));
+	await deleteAttachmentRow(db, row);
 }
 
 async function thumbnailOf(bytes: Buffer): Promise<Buffer | null> {
@@ -125,8 +96,9 @@ async function thumbnailOf(bytes: Buffer): Promise<Buffer | null> {
 }
 
 /**
- * Receive a pending file's bytes: they must have the announced size; the type is sniffed from the
- * bytes (executables refused), the SHA-256 taken, images get a thumbnail, and only then is the file
+ * Receive a pending file's bytes from the person who announced it (access layer): they must have
+ * the announced size; the type is sniffed from the bytes (executables refused), the SHA-256
+ * taken, images get a thumbnail, and only then is the file
  * stored and marked ready. Once ready its content can never be replaced: a later PUT is refused
  * (409), and the objects are written under a key of this attempt's own, which becomes the file's
  * only if the row was still pending at that moment, so two racing uploads cannot mix.
@@ -138,31 +110,30 @@ export async function receiveAttachmentContent(
 	id: string,
 	body: ReadableStream<Uint8Array> | null
 ) {
-	const row = await uploadableAttachment(db, viewer, id);
+	const row = await attachmentForChange(db, viewer, id, 'content');
 	const replaced = () =>
 		error(
 			409,
 			'This file has been uploaded and checked already; its content cannot be replaced. Delete it and attach the new file.'
 		);
 	if (row.status !== 'pending') replaced();
-	if (row.uploadedBy !== viewer.userId) {
-		error(403, 'Only the person who announced this file can send its content.');
-	}
+	// A failed upload leaves nothing behind; nothing was stored under the file's key yet.
+	const discardPending = () => forgetPendingAttachment(db, row);
 	const announced = row.sizeBytes ?? 0;
 	const bytes = await readBodyUpTo(body, Math.min(announced, config().ATTACHMENT_MAX_BYTES)).catch(
 		() => 'interrupted' as const
 	);
 	if (bytes === 'interrupted') {
-		await discardPending(db, id);
+		await discardPending();
 		error(400, 'The upload was interrupted; the file was not kept. Try again.');
 	}
 	if (!bytes || bytes.length !== announced) {
-		await discardPending(db, id);
+		await discardPending();
 		error(400, 'The file does not have the announced size; it was not kept.');
 	}
 	const sniffed = sniffFile(row.fileName, bytes.subarray(0, 4100), await fileTypeFromBuffer(bytes));
 	if (!sniffed.ok) {
-		await discardPending(db, id);
+		await discardPending();
 		error(415, `Refused: ${sniffed.reason}.`);
 	}
 	const thumbnail = sniffed.isImage ? await thumbnailOf(bytes) : null;
@@ -190,24 +161,19 @@ export async function receiveAttachmentContent(
 	} catch (err) {
 		console.error('attachment upload: the object store refused or is unreachable', err);
 		await removeObjects([objectKey, thumbnailKey]);
-		await discardPending(db, id);
+		await discardPending();
 		error(503, 'The file store could not be reached; the file was not kept. Try again.');
 	}
-	const [updated] = await db
-		.update(attachment)
-		.set({
-			status: 'ready',
-			objectKey,
-			contentType: sniffed.contentType,
-			sha256: createHash('sha256').update(bytes).digest('hex'),
-			thumbnailKey
-		})
-		.where(and(eq(attachment.id, id), eq(attachment.status, 'pending')))
-		.returning();
+	const updated = await markAttachmentReady(db, viewer, row, {
+		objectKey,
+		contentType: sniffed.contentType,
+		sha256: createHash('sha256').update(bytes).digest('hex'),
+		thumbnailKey
+	});
 	if (!updated) {
 		// Another upload finished first, or the file was deleted meanwhile: keep nothing of this one.
 		await removeObjects([objectKey, thumbnailKey]);
-		replaced();
+		return replaced();
 	}
 	return updated;
 }
@@ -223,15 +189,9 @@ export async function openAttachment(
 	id: string,
 	variant: 'file' | 'thumbnail'
 ) {
-	requireAttachmentId(id);
-	const [row] = await db
-		.select()
-		.from(attachment)
-		.where(and(eq(attachment.id, id), eq(attachment.status, 'ready')));
-	if (!row) error(404, 'No such file.');
-	await datasetForViewer(db, viewer, row.datasetId); // 404s when the dataset is not visible
+	const row = await readyAttachmentForViewer(db, viewer, id);
 	const key = variant === 'thumbnail' ? row.thumbnailKey : row.objectKey;
-	if (!key) error(404, 'This file has no preview.');
+	if (!key) notFound();
 	const stored = await s3()
 		.send(new GetObjectCommand({ Bucket: bucket(), Key: key }))
 		.catch((err) => {
@@ -265,6 +225,6 @@ export async function openAttachment(
 }
 
 export async function deleteAttachment(db: Db, viewer: Viewer, id: string) {
-	const row = await uploadableAttachment(db, viewer, id);
+	const row = await attachmentForChange(db, viewer, id, 'delete');
 	await discard(db, row);
 }

@@ -1,8 +1,9 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
-import { and, eq } from 'drizzle-orm';
 import { getDb } from './db';
-import { member, organisation } from './db/schema';
+import { importPayloadSchema } from './imports/payload';
 import { roleCan, type Action, type Resource } from './permissions';
+import { datasetForViewer } from './repositories/datasets';
+import { organisationBySlug } from './repositories/organisations';
 
 /** The signed-in user, or a redirect to sign-in (pages) / 401 (actions and API). */
 export function requireUser(event: RequestEvent, mode: 'page' | 'action' = 'page') {
@@ -21,16 +22,8 @@ export function requirePlatformAdmin(event: RequestEvent, mode: 'page' | 'action
 }
 
 /** The organisation for a slug and the user's membership in it (null when not a member); 404 if unknown. */
-export async function organisationAndMembership(slug: string, userId: string | null) {
-	const db = getDb();
-	const [org] = await db.select().from(organisation).where(eq(organisation.slug, slug));
-	if (!org) error(404, 'No such organisation.');
-	if (!userId) return { org, membership: null };
-	const [membership] = await db
-		.select()
-		.from(member)
-		.where(and(eq(member.organizationId, org.id), eq(member.userId, userId)));
-	return { org, membership: membership ?? null };
+export async function organisationAndMembership(event: RequestEvent, slug: string) {
+	return organisationBySlug(getDb(), event.locals.viewer, slug);
 }
 
 /**
@@ -45,9 +38,30 @@ export async function requireOrgPermission<R extends Resource>(
 	mode: 'page' | 'action' = 'action'
 ) {
 	const user = requireUser(event, mode);
-	const { org, membership } = await organisationAndMembership(slug, user.id);
+	const { org, membership } = await organisationAndMembership(event, slug);
 	if (!membership || !roleCan(membership.role, resource, action)) {
 		error(403, 'Your role in this organisation does not allow this.');
 	}
 	return { user, org, membership };
+}
+
+/** THE upload check for sites, logs and files: 403 with the reason unless the viewer may upload. */
+export function requireUpload(found: { can: { upload: boolean }; uploadRefusal: string | null }) {
+	if (!found.can.upload) error(403, found.uploadRefusal ?? 'You may not upload here.');
+}
+
+/** The signed-in, confirmed user may add sites to this dataset; returns the parsed import request. */
+export async function requireUploader(event: RequestEvent, datasetId: string) {
+	const user = requireUser(event, 'action');
+	const found = await datasetForViewer(getDb(), event.locals.viewer, datasetId);
+	requireUpload(found);
+	const body = await event.request.json().catch(() => null);
+	const parsed = importPayloadSchema.safeParse(body);
+	if (!parsed.success) {
+		error(
+			400,
+			`The upload could not be read: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`
+		);
+	}
+	return { user, dataset: found.dataset, payload: parsed.data };
 }

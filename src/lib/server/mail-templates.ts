@@ -60,6 +60,19 @@ export const mailTemplates = {
 			{ label: 'Choose a new password', url: resetUrl },
 			'If this was not you, ignore this message: nothing changed on your account.'
 		),
+	/** A dataset moved through its lifecycle (see access/lifecycle.ts); comment on returns. */
+	datasetTransition: (
+		d: { title: string; organisationName: string },
+		event: { actorName: string; past: string; comment: string | null },
+		url: string
+	) =>
+		compose(
+			`"${d.title}" was ${event.past}`,
+			`${event.actorName} ${event.past} the dataset "${d.title}" of ${d.organisationName}.` +
+				(event.comment ? ` Their comment: ${event.comment}` : ''),
+			{ label: 'Open the dataset', url },
+			'You receive this because you work on this dataset or review datasets for the organisation.'
+		),
 	invitation: (organisation: string, inviter: string, role: string, url: string) =>
 		compose(
 			`Invitation to join ${organisation}`,

@@ -1,4 +1,5 @@
 import { and, asc, eq, gt } from 'drizzle-orm';
+import type { Viewer } from '../access';
 import type { Db } from '../db/client';
 import { invitation, member, organisation, user } from '../db/schema';
 
@@ -55,4 +56,26 @@ export async function findInvitation(db: Db, id: string) {
 		.innerJoin(organisation, eq(invitation.organizationId, organisation.id))
 		.where(eq(invitation.id, id));
 	return row ?? null;
+}
+
+/**
+ * An invitation as the viewer may see it: null when unknown; only the invited address learns what
+ * it is (organisation, role, state); anyone else holding the link learns only that it is not
+ * theirs.
+ */
+export async function invitationForViewer(db: Db, viewer: Viewer, id: string) {
+	const found = await findInvitation(db, id);
+	if (!found || !viewer.userId) return null;
+	const [me] = await db.select({ email: user.email }).from(user).where(eq(user.id, viewer.userId));
+	if (!me || found.email.toLowerCase() !== me.email.toLowerCase()) {
+		return { forMe: false as const };
+	}
+	return {
+		forMe: true as const,
+		organisationName: found.organisationName,
+		organisationSlug: found.organisationSlug,
+		role: found.role,
+		status: found.status,
+		expired: found.expiresAt < new Date()
+	};
 }

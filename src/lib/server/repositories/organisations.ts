@@ -1,6 +1,8 @@
-import { asc } from 'drizzle-orm';
+import { error } from '@sveltejs/kit';
+import { and, asc, count, eq } from 'drizzle-orm';
+import type { Viewer } from '../access';
 import type { Db } from '../db/client';
-import { organisation } from '../db/schema';
+import { member, organisation } from '../db/schema';
 
 /** The public directory of organisations (names and descriptions are public by design). */
 export async function listOrganisations(db: Db) {
@@ -14,5 +16,49 @@ export async function listOrganisations(db: Db) {
 			description: organisation.description
 		})
 		.from(organisation)
+		.orderBy(asc(organisation.name));
+}
+
+/** The organisation for a slug and the viewer's membership in it (null when not a member); 404 if unknown. */
+export async function organisationBySlug(db: Db, viewer: Viewer, slug: string) {
+	const [org] = await db.select().from(organisation).where(eq(organisation.slug, slug));
+	if (!org) error(404, 'No such organisation.');
+	if (!viewer.userId) return { org, membership: null };
+	const [membership] = await db
+		.select()
+		.from(member)
+		.where(and(eq(member.organizationId, org.id), eq(member.userId, viewer.userId)));
+	return { org, membership: membership ?? null };
+}
+
+/** The organisations the viewer belongs to, with their role (account page). */
+export async function listMyOrganisations(db: Db, viewer: Viewer) {
+	if (!viewer.userId) return [];
+	return db
+		.select({
+			id: organisation.id,
+			name: organisation.name,
+			slug: organisation.slug,
+			role: member.role
+		})
+		.from(member)
+		.innerJoin(organisation, eq(member.organizationId, organisation.id))
+		.where(eq(member.userId, viewer.userId))
+		.orderBy(asc(organisation.name));
+}
+
+/** Every organisation with its number of members: platform administrators only. */
+export async function listOrganisationsForAdmin(db: Db, viewer: Viewer) {
+	if (!viewer.isPlatformAdmin) error(403, 'Only platform administrators may do this.');
+	return db
+		.select({
+			id: organisation.id,
+			name: organisation.name,
+			slug: organisation.slug,
+			members: count(member.id)
+		})
+		.from(organisation)
+		.leftJoin(member, eq(member.organizationId, organisation.id))
+		.groupBy(organisation.id)
 		.orderBy(asc(organisation.name));
 }

@@ -1,57 +1,60 @@
-import { error } from '@sveltejs/kit';
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
-import { visibleDatasets, type Viewer } from '../access';
+import { datasetRights, notFound, requireUuid, visibleDatasets, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import {
 	attachment,
 	conductivitySample,
 	dataset,
 	heatFlowComputation,
+	organisation,
 	site,
 	temperatureLog
 } from '../db/schema';
-import { datasetForViewer } from './dataset-access';
 
-/** A site the viewer may see, with its dataset's permissions; 404 otherwise (ids are not guessable hints). */
+/** A site the viewer may see, with its dataset and what they may do with it; the common 404 otherwise. */
 export async function siteForViewer(db: Db, viewer: Viewer, id: string) {
-	if (!/^[0-9a-f-]{36}$/i.test(id)) error(404, 'No such site.');
+	requireUuid(id);
 	const [row] = await db
 		.select({
 			site,
 			lon: sql<number>`ST_X(${site.location})`,
-			lat: sql<number>`ST_Y(${site.location})`
+			lat: sql<number>`ST_Y(${site.location})`,
+			dataset,
+			organisationName: organisation.name
 		})
 		.from(site)
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
 		.where(and(eq(site.id, id), visibleDatasets(viewer)));
-	if (!row) error(404, 'No such site.');
-	const owner = await datasetForViewer(db, viewer, row.site.datasetId);
-	return {
-		...row,
-		dataset: owner.dataset,
-		organisationName: owner.organisationName,
-		can: owner.can,
-		uploadRefusal: owner.uploadRefusal
-	};
+	if (!row) notFound();
+	return { ...row, ...datasetRights(viewer, row.dataset) };
 }
 
-/** Logs, conductivity samples, computations and files of a site (the caller checked visibility). */
-export async function siteMeasurements(db: Db, siteId: string) {
+/** Logs, conductivity samples, computations and files of a site, under the dataset visibility rule. */
+export async function siteMeasurements(db: Db, viewer: Viewer, siteId: string) {
+	requireUuid(siteId);
+	const visibleSite = and(eq(site.id, siteId), visibleDatasets(viewer));
 	const [logs, samples, computations, files] = await Promise.all([
 		db
-			.select()
+			.select({ log: temperatureLog })
 			.from(temperatureLog)
-			.where(eq(temperatureLog.siteId, siteId))
+			.innerJoin(site, eq(temperatureLog.siteId, site.id))
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(visibleSite)
 			.orderBy(desc(temperatureLog.createdAt)),
 		db
-			.select()
+			.select({ sample: conductivitySample })
 			.from(conductivitySample)
-			.where(eq(conductivitySample.siteId, siteId))
+			.innerJoin(site, eq(conductivitySample.siteId, site.id))
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(visibleSite)
 			.orderBy(asc(conductivitySample.topM)),
 		db
-			.select()
+			.select({ computation: heatFlowComputation })
 			.from(heatFlowComputation)
-			.where(eq(heatFlowComputation.siteId, siteId))
+			.innerJoin(site, eq(heatFlowComputation.siteId, site.id))
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(visibleSite)
 			.orderBy(desc(heatFlowComputation.createdAt)),
 		db
 			.select({
@@ -62,8 +65,15 @@ export async function siteMeasurements(db: Db, siteId: string) {
 				thumbnailKey: attachment.thumbnailKey
 			})
 			.from(attachment)
-			.where(and(eq(attachment.siteId, siteId), eq(attachment.status, 'ready')))
+			.innerJoin(site, eq(attachment.siteId, site.id))
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(and(visibleSite, eq(attachment.status, 'ready')))
 			.orderBy(asc(attachment.fileName))
 	]);
-	return { logs, samples, computations, files };
+	return {
+		logs: logs.map((r) => r.log),
+		samples: samples.map((r) => r.sample),
+		computations: computations.map((r) => r.computation),
+		files: files.map(({ thumbnailKey, ...f }) => ({ ...f, hasThumbnail: Boolean(thumbnailKey) }))
+	};
 }

@@ -1,6 +1,6 @@
 import { and, asc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
 import { NO_FILTERS, type SiteFilters } from '$lib/map/filters';
-import { visibleDatasets, type Viewer } from '../access';
+import { visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { dataset, organisation, site } from '../db/schema';
 
@@ -26,7 +26,7 @@ export interface SiteSummary {
 }
 
 /**
- * Sites the viewer may see inside a WGS 84 bounding box (uses the GiST index on location),
+ * Sites the viewer may see on maps (retired datasets left out) inside a WGS 84 bounding box (uses the GiST index on location),
  * at most `limit` rows, ordered by code for stable paging.
  */
 export async function visibleSitesInBox(
@@ -37,7 +37,7 @@ export async function visibleSitesInBox(
 	limit = 100_000
 ): Promise<SiteSummary[]> {
 	const envelope = sql`ST_MakeEnvelope(${box.west}, ${box.south}, ${box.east}, ${box.north}, 4326)`;
-	const conditions: SQL[] = [sql`${site.location} && ${envelope}`, visibleDatasets(viewer)];
+	const conditions: SQL[] = [sql`${site.location} && ${envelope}`, visibleOnMaps(viewer)];
 	if (filters.quality.length) conditions.push(inArray(site.qualityClass, filters.quality));
 	if (filters.method.length) conditions.push(inArray(site.method, filters.method));
 	if (filters.minHeatFlowMWm2 !== null)

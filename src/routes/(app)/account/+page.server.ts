@@ -1,11 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { auth } from '$lib/server/auth';
 import { authFailure } from '$lib/server/auth/errors';
 import { getDb } from '$lib/server/db';
-import { member, organisation } from '$lib/server/db/schema';
 import { requireUser } from '$lib/server/guards';
+import { listMyOrganisations } from '$lib/server/repositories/organisations';
 import { parseForm } from '$lib/schemas/form';
 import { changePasswordSchema, emailOnlySchema, profileSchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';
@@ -13,17 +12,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const user = requireUser(event);
 	const sessions = await auth().api.listSessions({ headers: event.request.headers });
-	const memberships = await getDb()
-		.select({
-			id: organisation.id,
-			name: organisation.name,
-			slug: organisation.slug,
-			role: member.role
-		})
-		.from(member)
-		.innerJoin(organisation, eq(member.organizationId, organisation.id))
-		.where(eq(member.userId, user.id))
-		.orderBy(organisation.name);
+	const memberships = await listMyOrganisations(getDb(), event.locals.viewer);
 	const currentId = event.locals.session?.id;
 	return {
 		passwordChanged: event.url.searchParams.get('password') === 'changed',

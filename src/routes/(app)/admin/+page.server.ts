@@ -1,11 +1,10 @@
 import { fail } from '@sveltejs/kit';
-import { asc, count, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { auth } from '$lib/server/auth';
 import { authFailure } from '$lib/server/auth/errors';
 import { getDb } from '$lib/server/db';
-import { member, organisation } from '$lib/server/db/schema';
 import { requirePlatformAdmin } from '$lib/server/guards';
+import { listOrganisationsForAdmin } from '$lib/server/repositories/organisations';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -21,17 +20,7 @@ export const load: PageServerLoad = async (event) => {
 		},
 		headers: event.request.headers
 	});
-	const organisations = await getDb()
-		.select({
-			id: organisation.id,
-			name: organisation.name,
-			slug: organisation.slug,
-			members: count(member.id)
-		})
-		.from(organisation)
-		.leftJoin(member, eq(member.organizationId, organisation.id))
-		.groupBy(organisation.id)
-		.orderBy(asc(organisation.name));
+	const organisations = await listOrganisationsForAdmin(getDb(), event.locals.viewer);
 	return {
 		q,
 		users: users.users.map((u) => ({

@@ -5,3 +5,4 @@ export * from './sign-in-failures';
 export * from './auth';
 export * from './site-data';
 export * from './files';
+export * from './audit';

@@ -1,22 +1,10 @@
-import { and, eq } from 'drizzle-orm';
-import { visibleDatasets } from '$lib/server/access';
 import { getDb } from '$lib/server/db';
-import { dataset } from '$lib/server/db/schema';
 import { organisationAndMembership } from '$lib/server/guards';
+import { listOrganisationDatasets } from '$lib/server/repositories/datasets';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ params, locals }) => {
-	const { org, membership } = await organisationAndMembership(params.slug, locals.user?.id ?? null);
-	const datasets = await getDb()
-		.select({
-			id: dataset.id,
-			title: dataset.title,
-			status: dataset.status,
-			visibility: dataset.visibility
-		})
-		.from(dataset)
-		.where(and(eq(dataset.organisationId, org.id), visibleDatasets(locals.viewer)))
-		.orderBy(dataset.title);
+export const load: PageServerLoad = async (event) => {
+	const { org, membership } = await organisationAndMembership(event, event.params.slug);
 	return {
 		organisation: {
 			name: org.name,
@@ -26,6 +14,6 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 			description: org.description
 		},
 		role: membership?.role ?? null,
-		datasets
+		datasets: await listOrganisationDatasets(getDb(), event.locals.viewer, org.id)
 	};
 };

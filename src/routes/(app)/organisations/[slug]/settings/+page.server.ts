@@ -16,7 +16,7 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireUser(event);
-	const { org, membership } = await organisationAndMembership(event.params.slug, user.id);
+	const { org, membership } = await organisationAndMembership(event, event.params.slug);
 	if (!membership)
 		error(403, 'Only members of this organisation can see its members and settings.');
 	const db = getDb();
@@ -164,8 +164,8 @@ export const actions: Actions = {
 		return failed ?? { form: 'members', removed: true };
 	},
 	leave: async (event) => {
-		const user = requireUser(event, 'action');
-		const { org, membership } = await organisationAndMembership(event.params.slug!, user.id);
+		requireUser(event, 'action');
+		const { org, membership } = await organisationAndMembership(event, event.params.slug!);
 		if (!membership) error(403, 'You are not a member of this organisation.');
 		const failed = await asUser(
 			event,

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { getDb } from '$lib/server/db';
-import { requireUploader } from '$lib/server/imports/guard';
+import { requireUploader } from '$lib/server/guards';
 import { startImport } from '$lib/server/imports/run-import';
 import type { RequestHandler } from './$types';
 

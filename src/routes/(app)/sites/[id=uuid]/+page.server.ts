@@ -1,6 +1,5 @@
 import { fail } from '@sveltejs/kit';
 import { version } from '$app/environment';
-import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import {
 	parseConductivitySamples,
@@ -10,16 +9,14 @@ import {
 	ImportFormatError
 } from '$lib/imports';
 import { heatFlowFromLog, InputError } from '$lib/thermal';
-import { qualityClass } from '$lib/sites/quality';
 import { getDb } from '$lib/server/db';
-import {
-	conductivitySample,
-	heatFlowComputation,
-	site,
-	temperatureLog
-} from '$lib/server/db/schema';
 import { requireUser } from '$lib/server/guards';
-import { requireUpload } from '$lib/server/repositories/dataset-access';
+import {
+	addTemperatureLog,
+	editableSite as editable,
+	recordHeatFlowComputation,
+	replaceConductivitySamples
+} from '$lib/server/repositories/site-data';
 import { siteForViewer, siteMeasurements } from '$lib/server/repositories/site-detail';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -28,7 +25,7 @@ const MAX_LOG_BYTES = 5 * 1024 * 1024;
 export const load: PageServerLoad = async ({ params, locals }) => {
 	const db = getDb();
 	const found = await siteForViewer(db, locals.viewer, params.id);
-	const m = await siteMeasurements(db, params.id);
+	const m = await siteMeasurements(db, locals.viewer, params.id);
 	return {
 		site: { ...found.site, lon: found.lon, lat: found.lat },
 		dataset: {
@@ -53,16 +50,14 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 			sigmaWmK: s.sigmaWmK ?? undefined
 		})),
 		computations: m.computations,
-		files: m.files.map(({ thumbnailKey, ...f }) => ({ ...f, hasThumbnail: Boolean(thumbnailKey) }))
+		files: m.files
 	};
 };
 
 /** The site, if the user may change it (uploader of its dataset, confirmed address). */
 async function editableSite(event: RequestEvent) {
-	const user = requireUser(event, 'action');
-	const found = await siteForViewer(getDb(), event.locals.viewer, event.params.id);
-	requireUpload(found);
-	return { user, found };
+	requireUser(event, 'action');
+	return editable(getDb(), event.locals.viewer, event.params.id);
 }
 
 async function uploadedText(
@@ -91,7 +86,7 @@ const computeSchema = z
 
 export const actions: Actions = {
 	log: async (event) => {
-		const { user } = await editableSite(event);
+		const target = await editableSite(event);
 		const form = await event.request.formData();
 		const upload = await uploadedText(form, 'file');
 		if (typeof upload === 'string') return fail(400, { form: 'log', message: upload });
@@ -111,13 +106,11 @@ export const actions: Actions = {
 						'The log needs at least 3 readable points.'
 				});
 			}
-			await getDb().insert(temperatureLog).values({
-				siteId: event.params.id,
+			await addTemperatureLog(getDb(), event.locals.viewer, target, {
 				name: upload.fileName,
 				sourceFileName: upload.fileName,
 				depthM: log.depthM,
-				temperatureC: log.temperatureC,
-				createdBy: user.id
+				temperatureC: log.temperatureC
 			});
 			return { form: 'log', saved: log.depthM.length, notes: log.issues.map((i) => i.message) };
 		} catch (err) {
@@ -126,7 +119,7 @@ export const actions: Actions = {
 		}
 	},
 	conductivity: async (event) => {
-		await editableSite(event);
+		const target = await editableSite(event);
 		const upload = await uploadedText(await event.request.formData(), 'file');
 		if (typeof upload === 'string') return fail(400, { form: 'conductivity', message: upload });
 		try {
@@ -137,19 +130,7 @@ export const actions: Actions = {
 					message: parsed.issues.map((i) => i.message).join(' ') || 'No samples found.'
 				});
 			}
-			// The new file replaces the site's samples, in one transaction.
-			await getDb().transaction(async (tx) => {
-				await tx.delete(conductivitySample).where(eq(conductivitySample.siteId, event.params.id));
-				await tx.insert(conductivitySample).values(
-					parsed.intervals.map((i) => ({
-						siteId: event.params.id,
-						topM: i.topM,
-						bottomM: i.bottomM,
-						conductivityWmK: i.conductivityWmK,
-						sigmaWmK: i.sigmaWmK ?? null
-					}))
-				);
-			});
+			await replaceConductivitySamples(getDb(), target, parsed.intervals);
 			return { form: 'conductivity', saved: parsed.intervals.length };
 		} catch (err) {
 			if (err instanceof ImportFormatError)
@@ -158,14 +139,14 @@ export const actions: Actions = {
 		}
 	},
 	compute: async (event) => {
-		const { user, found } = await editableSite(event);
+		const target = await editableSite(event);
 		const raw = Object.fromEntries(await event.request.formData());
 		const parsed = computeSchema.safeParse(raw);
 		if (!parsed.success)
 			return fail(400, { form: 'compute', message: parsed.error.issues[0].message });
 		const { logId, method, fromM, toM, save } = parsed.data;
 		const db = getDb();
-		const m = await siteMeasurements(db, event.params.id);
+		const m = await siteMeasurements(db, event.locals.viewer, event.params.id);
 		const log = m.logs.find((l) => l.id === logId);
 		if (!log)
 			return fail(404, { form: 'compute', message: 'That log does not belong to this site.' });
@@ -193,45 +174,25 @@ export const actions: Actions = {
 			if (err instanceof InputError) return fail(400, { form: 'compute', message: err.message });
 			throw err;
 		}
-		await db.insert(heatFlowComputation).values({
-			siteId: event.params.id,
-			logId,
-			method,
-			fromM,
-			toM,
-			heatFlowMWm2: estimate.heatFlowMWm2,
-			sigmaMWm2: estimate.sigmaMWm2,
-			gradientKPerKm: estimate.gradientKPerKm,
-			sigmaGradientKPerKm: estimate.sigmaGradientKPerKm,
-			meanConductivityWmK: estimate.meanConductivityWmK,
-			samples: estimate.samples,
-			engineVersion: `thermalith ${version}`,
-			createdBy: user.id
-		});
-		if (save) {
-			const siteMethod = method === 'bullard' ? 'bullard' : 'borehole_interval';
-			await db
-				.update(site)
-				.set({
-					heatFlowMWm2: estimate.heatFlowMWm2,
-					heatFlowSigmaMWm2: estimate.sigmaMWm2,
-					gradientKPerKm: estimate.gradientKPerKm,
-					gradientSigmaKPerKm: estimate.sigmaGradientKPerKm,
-					conductivityWmK: estimate.meanConductivityWmK,
-					conductivitySamples: m.samples.length,
-					topDepthM: fromM,
-					bottomDepthM: toM,
-					method: siteMethod,
-					qualityClass: qualityClass({
-						heatFlowMWm2: estimate.heatFlowMWm2,
-						heatFlowSigmaMWm2: estimate.sigmaMWm2,
-						method: siteMethod,
-						conductivitySamples: m.samples.length
-					}),
-					updatedAt: new Date()
-				})
-				.where(eq(site.id, found.site.id));
-		}
+		await recordHeatFlowComputation(
+			db,
+			event.locals.viewer,
+			target,
+			{
+				logId,
+				method,
+				fromM,
+				toM,
+				heatFlowMWm2: estimate.heatFlowMWm2,
+				sigmaMWm2: estimate.sigmaMWm2,
+				gradientKPerKm: estimate.gradientKPerKm,
+				sigmaGradientKPerKm: estimate.sigmaGradientKPerKm,
+				meanConductivityWmK: estimate.meanConductivityWmK,
+				samples: estimate.samples,
+				engineVersion: `thermalith ${version}`
+			},
+			save ? { conductivitySamples: m.samples.length } : null
+		);
 		return { form: 'compute', estimate, saved: Boolean(save) };
 	}
 };

@@ -1,6 +1,6 @@
 import { getDb } from '$lib/server/db';
-import { requireUser } from '$lib/server/guards';
-import { datasetForViewer, requireUpload } from '$lib/server/repositories/dataset-access';
+import { requireUpload, requireUser } from '$lib/server/guards';
+import { datasetForViewer } from '$lib/server/repositories/datasets';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { issuesToCsv } from '$lib/imports';
 import { getDb } from '$lib/server/db';
-import { requireUploader } from '$lib/server/imports/guard';
+import { requireUploader } from '$lib/server/guards';
 import { serverPreview } from '$lib/server/imports/preview';
 import type { RequestHandler } from './$types';
 

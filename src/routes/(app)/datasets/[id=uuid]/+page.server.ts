@@ -1,0 +1,101 @@
+import { error, fail, type RequestEvent } from '@sveltejs/kit';
+import { TRANSITION_NAMES, transitionRefusal, type TransitionName } from '$lib/server/access';
+import { getDb } from '$lib/server/db';
+import { requireUser } from '$lib/server/guards';
+import { mailTransition } from '$lib/server/lifecycle-mail';
+import { listDatasetHistory } from '$lib/server/repositories/audit';
+import {
+	datasetForViewer,
+	listDatasetFiles,
+	listDatasetImports,
+	updateDatasetMetadata
+} from '$lib/server/repositories/datasets';
+import { lastReturnComment, transitionDataset } from '$lib/server/repositories/lifecycle';
+import { listDatasetSites } from '$lib/server/repositories/site-list';
+import { parseForm } from '$lib/schemas/form';
+import { datasetSchema, transitionSchema } from '$lib/schemas/dataset';
+import { parseSiteListQuery } from '$lib/sites/list-query';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ params, locals, url }) => {
+	const db = getDb();
+	const found = await datasetForViewer(db, locals.viewer, params.id);
+	const query = parseSiteListQuery(url.searchParams);
+	const [sites, files, imports, history] = await Promise.all([
+		listDatasetSites(db, locals.viewer, params.id, query),
+		listDatasetFiles(db, locals.viewer, params.id),
+		listDatasetImports(db, locals.viewer, params.id),
+		listDatasetHistory(db, locals.viewer, params.id)
+	]);
+	return {
+		dataset: found.dataset,
+		organisationName: found.organisationName,
+		organisationSlug: found.organisationSlug,
+		can: found.can,
+		// The transitions this viewer may make now (the buttons shown).
+		transitions: TRANSITION_NAMES.filter(
+			(t) => transitionRefusal(locals.viewer, found.dataset, t) === null
+		),
+		returned:
+			found.can.readPrivate && found.dataset.status === 'returned'
+				? await lastReturnComment(db, params.id)
+				: null,
+		query,
+		sites,
+		files,
+		imports,
+		history: history.map((h) => ({
+			at: h.at.toISOString(),
+			action: h.action,
+			actorName: h.actorName,
+			comment: typeof h.details.comment === 'string' ? h.details.comment : null
+		}))
+	};
+};
+
+/** A lifecycle form action: 403 with a sentence from the wrong state or role, nothing changed. */
+function transition(name: TransitionName) {
+	return async (event: RequestEvent<{ id: string }>) => {
+		const user = requireUser(event, 'action');
+		const parsed = parseForm(transitionSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { ...parsed, form: 'lifecycle' });
+		const db = getDb();
+		const comment = parsed.data.comment;
+		const result = await transitionDataset(db, event.locals.viewer, event.params.id, name, comment);
+		if ('missingComment' in result) {
+			return fail(400, {
+				form: 'lifecycle',
+				message:
+					'Say what needs to change: returning a dataset needs a comment. Nothing was changed.'
+			});
+		}
+		const found = await datasetForViewer(db, event.locals.viewer, event.params.id);
+		await mailTransition(
+			db,
+			event.locals.viewer,
+			user.name,
+			{ ...result.dataset, organisationName: found.organisationName },
+			name,
+			comment
+		);
+		return { form: 'lifecycle', transitioned: name };
+	};
+}
+
+export const actions: Actions = {
+	update: async (event) => {
+		requireUser(event, 'action');
+		const db = getDb();
+		const found = await datasetForViewer(db, event.locals.viewer, event.params.id);
+		if (!found.can.editMetadata) error(403, 'Your role does not allow editing this dataset now.');
+		const parsed = parseForm(datasetSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, parsed);
+		if (!(await updateDatasetMetadata(db, event.locals.viewer, found, parsed.data)))
+			error(403, 'The dataset changed state meanwhile; nothing was saved. Reload the page.');
+		return { saved: true };
+	},
+	submit: transition('submit'),
+	return: transition('return'),
+	publish: transition('publish'),
+	retire: transition('retire')
+};
