@@ -60,6 +60,11 @@ function printSummary({ ports, host, embedded, appEnv, storageDir }) {
 		`  SMTP         ${embedded.mail ? `${appEnv.SMTP_URL} (embedded mail catcher)` : 'external (SMTP_URL / SMTP_HOST)'}`
 	);
 	if (embedded.mail) console.log(`  Caught mail  ${appEnv.MAIL_VIEWER_URL}`);
+	if (appEnv.HOST === '127.0.0.1') {
+		console.log(
+			'  Only this machine can open it; for other computers set HOST=0.0.0.0 and ORIGIN (see README).'
+		);
+	}
 	console.log(
 		'  Demo accounts are printed above (and listed in the README); press Ctrl-C to stop everything.'
 	);

@@ -9,6 +9,7 @@ import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
+import { clusterDir } from '../../scripts/lib/postgres.js';
 
 const ROOT = path.resolve('.');
 // Ports of their own: 50 above this test run's, clear of the other profiles' blocks.
@@ -115,7 +116,14 @@ afterEach(async () => {
 	}
 });
 
-afterAll(() => fs.rmSync(storageRoot, { recursive: true, force: true }));
+afterAll(() => {
+	// As root in a private checkout the clusters live under /var/tmp (clusterDir): remove those too.
+	for (const profile of ['start', 'test']) {
+		const cluster = clusterDir(path.join(storageRoot, profile, 'postgres'));
+		if (!cluster.startsWith(storageRoot)) fs.rmSync(cluster, { recursive: true, force: true });
+	}
+	fs.rmSync(storageRoot, { recursive: true, force: true });
+});
 
 describe('npm start', () => {
 	const storage = path.join(storageRoot, 'start');
