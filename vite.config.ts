@@ -46,6 +46,10 @@ export default defineConfig({
 					environment: 'node',
 					include: ['tests/e2e/**/*.e2e.ts'],
 					fileParallelism: false,
+					// After the other projects (which run together in group 0): the browser tests share
+					// the app and database with the integration tests, and their timeouts should not
+					// depend on how hard those are hitting the app at the same moment.
+					sequence: { groupOrder: 1 },
 					testTimeout: 60_000,
 					hookTimeout: 60_000
 				}

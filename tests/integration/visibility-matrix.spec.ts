@@ -203,6 +203,16 @@ const statusOf = async (id: string) =>
 	(await db.select({ s: dataset.status }).from(dataset).where(eq(dataset.id, id)))[0].s;
 const get = (k: Kind, p: string) => clients[k].get(p);
 const text = async (k: Kind, p: string) => (await get(k, p)).text();
+/**
+ * Pages that list every case at once are fetched once per viewer kind and read for each case:
+ * nothing the rows do changes them, and the app is shared with the end-to-end tests.
+ */
+const listed = new Map<string, Promise<string>>();
+const textOnce = (k: Kind, p: string) => {
+	const key = `${k} ${p}`;
+	if (!listed.has(key)) listed.set(key, text(k, p));
+	return listed.get(key)!;
+};
 
 /** Every route under src/routes, keyed by its route id. */
 const ROUTES: Record<string, Row> = {
@@ -211,7 +221,9 @@ const ROUTES: Record<string, Row> = {
 		checks: [
 			{
 				name: 'home-page counts (sites, datasets, organisations)',
-				run: async (k) => {
+				run: async (k, c) => {
+					// Counts do not depend on the case: check them once per viewer kind.
+					if (c !== caseNames[0]) return expect(c).not.toBe(caseNames[0]);
 					const html = await text(k, '/');
 					const count = (id: string) =>
 						Number(html.match(new RegExp(`data-testid="${id}"[^>]*>\\s*(\\d+)`))![1]);
@@ -248,7 +260,7 @@ const ROUTES: Record<string, Row> = {
 			{
 				name: 'dataset list',
 				run: async (k, c) => {
-					const body = await text(k, '/datasets/__data.json');
+					const body = await textOnce(k, '/datasets/__data.json');
 					expect(body.includes(ids[c].dataset)).toBe(sees(k, c));
 				}
 			}
@@ -259,7 +271,7 @@ const ROUTES: Record<string, Row> = {
 			{
 				name: "organisation page's datasets",
 				run: async (k, c) => {
-					const body = await text(k, '/organisations/korvald-survey/__data.json');
+					const body = await textOnce(k, '/organisations/korvald-survey/__data.json');
 					expect(body.includes(ids[c].dataset)).toBe(sees(k, c));
 				}
 			}
@@ -349,8 +361,8 @@ const ROUTES: Record<string, Row> = {
 				name: 'map query (GeoJSON)',
 				run: async (k, c) => {
 					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
-					const res = await get(k, `/api/v1/sites.geojson?bbox=${bbox}`);
-					const found = (await res.json()).features.map((f: { id: string }) => f.id);
+					const body = JSON.parse(await textOnce(k, `/api/v1/sites.geojson?bbox=${bbox}`));
+					const found = body.features.map((f: { id: string }) => f.id);
 					expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
 				}
 			}
