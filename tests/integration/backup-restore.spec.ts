@@ -14,9 +14,9 @@ import postgres from 'postgres';
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
 
 const ROOT = path.resolve('.');
-// Ports of their own: 60 above this test run's, clear of the other profiles' blocks and of
-// the orchestration tests (+50).
-const OFFSET = Number(process.env.THERMALITH_PORT_OFFSET ?? 0) + 60;
+// Ports of their own: 70 above this test run's, clear of the other profiles' blocks and of the
+// orchestration tests (50 above: their `npm start` and test services).
+const OFFSET = Number(process.env.THERMALITH_PORT_OFFSET ?? 0) + 70;
 const PORTS = { app: 3000 + OFFSET, postgres: 54330 + OFFSET, s3: 54331 + OFFSET };
 const root = path.join(ROOT, 'storage', 'test', `backup-${process.pid}`);
 const storage = path.join(root, 'local');
