@@ -11,7 +11,7 @@ import { fatal, ok, step, warn } from './log.js';
 import { portProblem } from './ports.js';
 import { forgetPostgres, recordPostgres } from './runstate.js';
 
-const PG_BIN = '/usr/lib/postgresql/15/bin';
+export const PG_BIN = '/usr/lib/postgresql/15/bin';
 const POSTGIS_CONTROL = '/usr/share/postgresql/15/extension/postgis.control';
 const APT_PACKAGES = ['postgresql-15', 'postgresql-15-postgis-3'];
 

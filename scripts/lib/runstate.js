@@ -119,6 +119,18 @@ export async function cleanUpLeftovers(dir, { stopPostgres }) {
 }
 
 /**
+ * The live run (`npm start`, `npm run dev`, …) that holds this storage folder, or null.
+ * @param {string} storageDir @returns {OrchestratorRecord | null}
+ */
+export function activeRun(storageDir) {
+	/** @type {OrchestratorRecord | null} */
+	const record = readJson(path.join(storageDir, 'run', 'orchestrator.json'));
+	return record && record.pid !== process.pid && stillOurs(record.pid, record.script)
+		? record
+		: null;
+}
+
+/**
  * Take the storage folder for this run: refuse when another live run holds it, clean up after a
  * crashed one, record this run and start its watcher.
  * @param {string} storageDir @param {string} label e.g. "npm start"

@@ -52,4 +52,26 @@ describe('parseLas', () => {
 		expect(() => parseLas(SMALL_LAS.split('~A')[0])).toThrow(/no ~ASCII/);
 		expect(() => parseLas('depth,temp\n1,2\n')).toThrow(/before the first ~ section/);
 	});
+	it('never echoes more than a short piece of a huge token (finding: a 1 MB token came back)', () => {
+		const huge = 'x'.repeat(1_000_000);
+		const messageOf = (text: string) => {
+			try {
+				parseLas(text);
+			} catch (err) {
+				return (err as Error).message;
+			}
+			throw new Error('parseLas accepted the file');
+		};
+		const cases = [
+			SMALL_LAS.replace(' 300.0   55.0', ` 300.0   ${huge}`), // a data value
+			SMALL_LAS.replace('VERS.   2.0', `VERS.   ${huge}`), // the version
+			SMALL_LAS.replace('~Well information', `~Well information\n${huge}`) // a header line without a unit dot
+		];
+		for (const text of cases) {
+			const message = messageOf(text);
+			expect(message.length).toBeLessThan(300);
+			expect(message).toContain(`"${'x'.repeat(80)}"… (1,000,000 characters)`);
+			expect(message).toMatch(/^LAS line \d+/);
+		}
+	});
 });

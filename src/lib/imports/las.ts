@@ -4,6 +4,7 @@
 // space, the description from the last ':'), sections start with '~' and '#' lines are comments.
 
 import { ImportFormatError } from './types';
+import { clipToken, quoteToken } from './quote';
 
 export interface LasItem {
 	mnemonic: string;
@@ -86,7 +87,7 @@ export function parseLas(text: string): LasFile {
 		const item = parseLasLine(raw, i + 1);
 		if (!item)
 			throw new ImportFormatError(
-				`LAS line ${i + 1}: expected "MNEMONIC.UNIT VALUE : DESCRIPTION"; got ${JSON.stringify(trimmed)}.`,
+				`LAS line ${i + 1}: expected "MNEMONIC.UNIT VALUE : DESCRIPTION"; got ${quoteToken(trimmed)}.`,
 				{ row: i + 1, value: trimmed }
 			);
 		list.push(item);
@@ -96,7 +97,7 @@ export function parseLas(text: string): LasFile {
 	if (!vers) throw new ImportFormatError('LAS: the ~VERSION section has no VERS line.');
 	if (!/^(1\.2|2(\.0+)?)$/.test(version))
 		throw new ImportFormatError(
-			`LAS line ${vers.line}: version ${JSON.stringify(version)} is not supported; only LAS 2.0 (and 1.2) are read.`,
+			`LAS line ${vers.line}: version ${quoteToken(version)} is not supported; only LAS 2.0 (and 1.2) are read.`,
 			{ row: vers.line, value: version }
 		);
 	const wrapItem = lasItem(sections.V, 'WRAP');
@@ -114,7 +115,7 @@ export function parseLas(text: string): LasFile {
 	const nullValue = nullItem && nullItem.value !== '' ? Number(nullItem.value) : null;
 	if (nullItem && nullValue !== null && !Number.isFinite(nullValue))
 		throw new ImportFormatError(
-			`LAS line ${nullItem.line}: NULL value ${JSON.stringify(nullItem.value)} is not a number.`,
+			`LAS line ${nullItem.line}: NULL value ${quoteToken(nullItem.value)} is not a number.`,
 			{ row: nullItem.line }
 		);
 	const curves: LasCurve[] = sections.C.map((c) => ({ ...c, values: [] }));
@@ -133,7 +134,7 @@ export function parseLas(text: string): LasFile {
 			const v = Number(fields[c]);
 			if (!Number.isFinite(v) || fields[c] === '')
 				throw new ImportFormatError(
-					`LAS line ${i + 1}, curve ${curves[c].mnemonic}: ${JSON.stringify(fields[c])} is not a number.`,
+					`LAS line ${i + 1}, curve ${clipToken(curves[c].mnemonic)}: ${quoteToken(fields[c])} is not a number.`,
 					{ row: i + 1, column: curves[c].mnemonic, value: fields[c] }
 				);
 			curves[c].values.push(nullValue !== null && v === nullValue ? null : v);

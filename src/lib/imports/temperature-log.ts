@@ -5,6 +5,7 @@
 import { parseNumberCell, cellText } from './cells';
 import { parseCsv } from './csv';
 import { lasItem, type LasCurve, type LasFile } from './las';
+import { clipToken, quoteToken } from './quote';
 import { ImportFormatError, type Cell, type ImportIssue } from './types';
 import { findUnit, recogniseUnit, type UnitDef } from '../geo/units';
 
@@ -31,7 +32,7 @@ function issue(
 	text: string,
 	where: string
 ): ImportIssue {
-	const shown = value === '' ? 'the value' : JSON.stringify(value);
+	const shown = value === '' ? 'the value' : quoteToken(value);
 	return {
 		row,
 		severity,
@@ -127,7 +128,7 @@ function unitFor(
 	const unit = override ? findUnit(quantity, override) : recogniseUnit(quantity, curve.unit);
 	if (!unit)
 		throw new ImportFormatError(
-			`LAS line ${curve.line}: curve ${curve.mnemonic} has unit ${JSON.stringify(curve.unit)}, not a ${quantity === 'depth' ? 'depth unit (M, FT)' : 'temperature unit (DEGC, DEGF, K)'}; choose the unit.`,
+			`LAS line ${curve.line}: curve ${clipToken(curve.mnemonic)} has unit ${quoteToken(curve.unit)}, not a ${quantity === 'depth' ? 'depth unit (M, FT)' : 'temperature unit (DEGC, DEGF, K)'}; choose the unit.`,
 			{ row: curve.line, column: curve.mnemonic, value: curve.unit }
 		);
 	return unit;
@@ -142,14 +143,14 @@ export function temperatureLogFromLas(las: LasFile, options: LasLogOptions = {})
 		: (DEPTH_MNEMONICS.map(byName).find(Boolean) ?? las.curves[0]);
 	if (!depth)
 		throw new ImportFormatError(
-			`LAS: no curve named ${JSON.stringify(options.depthCurve)}; curves: ${las.curves.map((c) => c.mnemonic).join(', ')}.`
+			`LAS: no curve named ${quoteToken(options.depthCurve ?? '')}; curves: ${las.curves.map((c) => clipToken(c.mnemonic)).join(', ')}.`
 		);
 	const temperature = options.temperatureCurve
 		? byName(options.temperatureCurve)
 		: findTemperatureCurve(las, depth.mnemonic);
 	if (!temperature)
 		throw new ImportFormatError(
-			`LAS: ${options.temperatureCurve ? `no curve named ${JSON.stringify(options.temperatureCurve)}` : 'no temperature curve found (mnemonic TEMP/TMP/BHT or unit DEGC/DEGF/K)'}; curves: ${las.curves.map((c) => `${c.mnemonic} (${c.unit || 'no unit'})`).join(', ')}. Choose one.`
+			`LAS: ${options.temperatureCurve ? `no curve named ${quoteToken(options.temperatureCurve)}` : 'no temperature curve found (mnemonic TEMP/TMP/BHT or unit DEGC/DEGF/K)'}; curves: ${las.curves.map((c) => `${clipToken(c.mnemonic)} (${clipToken(c.unit) || 'no unit'})`).join(', ')}. Choose one.`
 		);
 	const depthUnit = unitFor(
 		'depth',
@@ -202,7 +203,7 @@ export function temperatureLogFromCsv(text: string, options: CsvLogOptions = {})
 				issue(
 					row,
 					'error',
-					`column "${column}"`,
+					`column "${clipToken(column)}"`,
 					cellText(cell),
 					'number.invalid',
 					`${r.error}.`,
@@ -223,8 +224,8 @@ export function temperatureLogFromCsv(text: string, options: CsvLogOptions = {})
 	});
 	return cleanLog(
 		points,
-		`column "${table.headers[dc]}"`,
-		`column "${table.headers[tc]}"`,
+		`column "${clipToken(table.headers[dc])}"`,
+		`column "${clipToken(table.headers[tc])}"`,
 		'Row',
 		errors
 	);

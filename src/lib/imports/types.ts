@@ -34,6 +34,8 @@ export interface ImportIssue {
 	message: string;
 }
 
+const MESSAGE_MAX = 1000;
+
 /** A file that cannot be read at all (bad structure, not bad values); names where it failed. */
 export class ImportFormatError extends Error {
 	readonly row: number | null;
@@ -41,7 +43,9 @@ export class ImportFormatError extends Error {
 	readonly value: unknown;
 
 	constructor(message: string, where: { row?: number; column?: string; value?: unknown } = {}) {
-		super(message);
+		// Parsers quote file content cut short (quote.ts); this bounds what a message can grow to
+		// anyway (a list of thousands of curve names), since messages go back to the browser.
+		super(message.length > MESSAGE_MAX ? `${message.slice(0, MESSAGE_MAX)}…` : message);
 		this.name = 'ImportFormatError';
 		this.row = where.row ?? null;
 		this.column = where.column ?? null;

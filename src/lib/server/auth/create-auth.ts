@@ -10,7 +10,7 @@ import { ac, roles, ROLE_LABELS, isOrgRole } from '../permissions';
 import { and, eq, like } from 'drizzle-orm';
 import { CLIENT_ADDRESS_HEADER } from './client-address';
 import { cookieSettings } from './cookies';
-import { organisationHooks } from './organisation-hooks';
+import { allowUserToCreateOrganization, organisationHooks } from './organisation-hooks';
 import { betterAuthRateRules } from './rate-rules';
 import { signInGuard } from './sign-in-guard';
 
@@ -143,6 +143,7 @@ export function createAuth(s: AuthSettings) {
 				creatorRole: 'owner',
 				invitationExpiresIn: 7 * 24 * 60 * 60,
 				cancelPendingInvitationsOnReInvite: true,
+				allowUserToCreateOrganization,
 				organizationHooks: organisationHooks,
 				schema: {
 					organization: {

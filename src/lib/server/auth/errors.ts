@@ -19,6 +19,9 @@ const MESSAGES: Record<string, string> = {
 		'The organisation needs at least one owner. Make another member owner first.',
 	USER_IS_ALREADY_A_MEMBER_OF_THIS_ORGANIZATION: 'That person is a member already.',
 	USER_IS_ALREADY_INVITED_TO_THIS_ORGANIZATION: 'That address has a pending invitation already.',
+	YOU_ARE_NOT_ALLOWED_TO_CREATE_A_NEW_ORGANIZATION:
+		'Confirm your e-mail address before you create an organisation.',
+	EMAIL_NOT_CONFIRMED: 'Confirm your e-mail address before you invite people.',
 	INVALID_WEB_ADDRESS: 'Enter a web address starting with https://',
 	BANNED_USER: 'This account is suspended. Contact the platform administrators.'
 };

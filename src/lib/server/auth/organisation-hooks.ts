@@ -23,7 +23,26 @@ function checkAddresses(org: OrganisationInput) {
 	}
 }
 
+/**
+ * Organisations and invitation e-mails speak in an organisation's name, so only an account whose
+ * own address is confirmed may create one or invite people (an unconfirmed account could otherwise
+ * mail anyone "an invitation from <any name>"). Both paths run through better-auth's endpoints,
+ * which the product's forms call too, so this is the one place for the rule.
+ */
+export const EMAIL_NOT_CONFIRMED = 'EMAIL_NOT_CONFIRMED';
+
+export const allowUserToCreateOrganization = (user: { emailVerified?: boolean }) =>
+	user.emailVerified === true;
+
 export const organisationHooks = {
+	beforeCreateInvitation: async ({ inviter }: { inviter: { emailVerified?: boolean } }) => {
+		if (inviter.emailVerified !== true) {
+			throw new APIError('FORBIDDEN', {
+				code: EMAIL_NOT_CONFIRMED,
+				message: 'Confirm your e-mail address before you invite people.'
+			});
+		}
+	},
 	beforeCreateOrganization: async ({ organization }: { organization: OrganisationInput }) => {
 		checkAddresses(organization);
 	},

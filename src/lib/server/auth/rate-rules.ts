@@ -1,4 +1,9 @@
+/** A fixed window of `windowS` seconds in which `max` attempts are allowed. */
+export type RateRule = { windowS: number; max: number };
+
 /**
+ * The one place for the product's request limits.
+ *
  * How often one client address may call the account endpoints, in one table for both entry
  * points: better-auth's HTTP routes (/api/auth/…, its own limiter) and the product's form actions
  * (which call auth.api directly, where better-auth's limiter does not run).
@@ -12,6 +17,17 @@ export const AUTH_RATE_RULES = {
 } as const;
 
 export type AuthRateRule = keyof typeof AUTH_RATE_RULES;
+
+/**
+ * How often one signed-in user may call costly routes (counted by src/lib/server/rate-limit.ts).
+ * An import preview validates a whole upload (up to the body limit) without writing anything;
+ * the wizard calls it once per file and mapping change.
+ */
+export const USER_RATE_RULES = {
+	'import-preview': { windowS: 60, max: 30 }
+} as const satisfies Record<string, RateRule>;
+
+export type UserRateRule = keyof typeof USER_RATE_RULES;
 
 /** better-auth's `rateLimit.customRules` shape. */
 export const betterAuthRateRules = Object.fromEntries(

@@ -7,7 +7,9 @@ import { organisationSchema } from '$lib/schemas/organisation';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = (event) => {
-	requireUser(event);
+	// The rule itself is enforced by better-auth (allowUserToCreateOrganization); this only
+	// lets the page say so before the form is filled in.
+	return { verified: requireUser(event).emailVerified };
 };
 
 export const actions: Actions = {

@@ -1,8 +1,9 @@
 import { json } from '@sveltejs/kit';
 import { issuesToCsv } from '$lib/imports';
 import { getDb } from '$lib/server/db';
-import { requireUploader } from '$lib/server/guards';
+import { requireUploader, requireUser } from '$lib/server/guards';
 import { serverPreview } from '$lib/server/imports/preview';
+import { limitUser } from '$lib/server/rate-limit';
 import type { RequestHandler } from './$types';
 
 const ISSUES_SHOWN = 2000;
@@ -10,6 +11,8 @@ const ROWS_SHOWN = 25;
 
 /** Validate an upload without writing anything: counts, issues, the first rows as they will be stored. */
 export const POST: RequestHandler = async (event) => {
+	// Counted before the body is read: the limit is about the work a preview costs.
+	await limitUser(getDb(), event, requireUser(event, 'action').id, 'import-preview');
 	const { payload } = await requireUploader(event, event.params.id);
 	const { preview, previousImport } = await serverPreview(
 		getDb(),

@@ -1,0 +1,95 @@
+// @ts-check
+/** Helpers of `npm run bench:load` (scripts/bench-load.js): data, one autocannon run, RSS. */
+import fs from 'node:fs';
+import autocannon from 'autocannon';
+import postgres from 'postgres';
+
+/** Where the invented load sites go: around the demo scenario's region (lon/lat, WGS 84). */
+const REGION = /** @type {const} */ ([4, 56, 14, 64]);
+
+/**
+ * Add `count` invented public sites to the first published public demo dataset (random places
+ * in REGION, random heat flow 30-150 mW/m²). Returns one site id for the site page and the region.
+ * @param {string} databaseUrl @param {number} count
+ */
+export async function addLoadSites(databaseUrl, count) {
+	const sql = postgres(databaseUrl, { max: 1, onnotice: () => {} });
+	try {
+		const [dataset] = await sql`
+			SELECT id FROM dataset WHERE status = 'published' AND visibility = 'public'
+			ORDER BY created_at LIMIT 1`;
+		if (!dataset) throw new Error('no published public dataset in the demo data');
+		const [w, s, e, n] = REGION;
+		await sql`
+			INSERT INTO site (dataset_id, code, name, location, heat_flow_mw_m2, heat_flow_sigma_mw_m2, method)
+			SELECT ${dataset.id}, 'LOAD-' || g, 'Load site ' || g,
+				ST_SetSRID(ST_MakePoint(${w} + random() * ${e - w}, ${s} + random() * ${n - s}), 4326),
+				round((30 + random() * 120)::numeric, 1), round((3 + random() * 10)::numeric, 1),
+				(enum_range(NULL::heat_flow_method))[1 + floor(random() * array_length(enum_range(NULL::heat_flow_method), 1))::int]
+			FROM generate_series(1, ${count}) g
+			ON CONFLICT DO NOTHING`;
+		await sql`ANALYZE site`;
+		const [site] =
+			await sql`SELECT id FROM site WHERE dataset_id = ${dataset.id} ORDER BY code LIMIT 1`;
+		return { siteId: /** @type {string} */ (site.id), region: REGION };
+	} finally {
+		await sql.end();
+	}
+}
+
+/**
+ * One autocannon run; counts every error, timeout and non-2xx answer as a failure.
+ * @param {{ url: string, connections: number, duration: number, requests?: { method: 'GET', path: string }[] }} options
+ */
+export async function runLoad({ url, connections, duration, requests }) {
+	const result = await autocannon({ url, connections, duration, requests, timeout: 30 });
+	return {
+		requests: result.requests.total,
+		rps: result.requests.average,
+		p50: result.latency.p50,
+		p99: result.latency.p99,
+		maxMs: result.latency.max,
+		errors: result.errors,
+		timeouts: result.timeouts,
+		non2xx: result.non2xx,
+		failures: result.errors + result.timeouts + result.non2xx
+	};
+}
+
+/** Resident memory of a process in MB (Linux /proc), or null when it cannot be read. @param {number} pid */
+export function rssOf(pid) {
+	try {
+		const status = fs.readFileSync(`/proc/${pid}/status`, 'utf8');
+		const kb = Number(/VmRSS:\s+(\d+)/.exec(status)?.[1]);
+		return Number.isFinite(kb) ? Math.round(kb / 102.4) / 10 : null;
+	} catch {
+		return null;
+	}
+}
+
+/** @param {number[]} values */
+const median = (values) => {
+	const sorted = [...values].sort((a, b) => a - b);
+	return sorted.length ? sorted[Math.floor(sorted.length / 2)] : 0;
+};
+
+/**
+ * Flat or not: after a warm-up (the first sixth, while caches and the JIT fill), the median of the
+ * last third may exceed the median of the first third by at most 10 %. Common practice, no source.
+ * @param {{ t: number, rssMB: number }[]} samples
+ */
+export function summariseRss(samples) {
+	const values = samples.map((s) => s.rssMB);
+	const warm = values.slice(Math.floor(values.length / 6));
+	const third = Math.max(1, Math.floor(warm.length / 3));
+	const earlyMedianMB = median(warm.slice(0, third));
+	const lateMedianMB = median(warm.slice(-third));
+	return {
+		firstMB: values[0] ?? 0,
+		lastMB: values.at(-1) ?? 0,
+		maxMB: Math.max(...values, 0),
+		earlyMedianMB,
+		lateMedianMB,
+		flat: lateMedianMB <= earlyMedianMB * 1.1
+	};
+}
