@@ -1,5 +1,5 @@
 /**
- * Who is asking. Built once per request in hooks.server.ts (see ../viewer.ts); anonymous visitors
+ * Who is asking. Built once per request in hooks.server.ts (see ../session-viewer.ts); anonymous visitors
  * have no user id and no memberships.
  */
 export interface Viewer {

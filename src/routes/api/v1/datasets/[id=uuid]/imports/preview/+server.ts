@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { issuesToCsv } from '$lib/imports';
 import { getDb } from '$lib/server/db';
 import { requireUploader } from '$lib/server/guards';
-import { serverPreview } from '$lib/server/imports/preview';
+import { serverPreview } from '$lib/server/imports/server-preview';
 import type { RequestHandler } from './$types';
 
 const ISSUES_SHOWN = 2000;
