@@ -8,7 +8,7 @@ export interface Viewer {
 	emailVerified: boolean;
 	/** The viewer's role in each organisation they belong to, by organisation id. */
 	roles: Record<string, string>;
-	/** Runs the platform (accounts, organisations); sees no unpublished data (DEVELOPERS.md). */
+	/** Runs the platform (accounts, organisations); sees no unpublished data (README.md here). */
 	isPlatformAdmin: boolean;
 }
 
