@@ -13,7 +13,7 @@ import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
 import { crossOriginRefusal } from '$lib/server/origin-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
-import { viewerFor } from '$lib/server/viewer';
+import { viewerFor } from '$lib/server/session-viewer';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {

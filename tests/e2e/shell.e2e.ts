@@ -113,8 +113,31 @@ describe('map page', () => {
 		await expect
 			.poll(async () => Number(await map.getAttribute('data-sites')), { timeout: 10_000 })
 			.toBe(marine.features.length);
+
+		// Search by code, the same parameter the dataset tables and the API take.
+		const code: string = marine.features[0].properties.code;
+		const search = page.getByLabel('Site code or name contains');
+		await search.fill(code);
+		await search.press('Enter');
+		await page.waitForURL((url) => url.searchParams.get('q') === code);
+		const searched = await (
+			await fetch(
+				`${appUrl()}/api/v1/sites.geojson?bbox=${bounds}&method=marine_probe&q=${encodeURIComponent(code)}`
+			)
+		).json();
+		expect(
+			searched.features.map((f: { properties: { code: string } }) => f.properties.code)
+		).toContain(code);
+		for (const f of searched.features) {
+			expect(f.properties.code.toLowerCase()).toContain(code.toLowerCase());
+		}
+		await expect
+			.poll(async () => Number(await map.getAttribute('data-sites')), { timeout: 10_000 })
+			.toBe(searched.features.length);
+
 		await page.reload({ waitUntil: 'networkidle' });
 		expect(await page.getByLabel('Marine probe').isChecked()).toBe(true);
+		expect(await search.inputValue()).toBe(code);
 		expect(errors).toEqual([]);
 		await page.close();
 	});

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { siteFeaturePropertiesSchema } from '../../src/lib/sites/summary';
 import { testEnv } from './env';
 
 describe('/api/v1/sites.geojson', () => {
@@ -24,5 +25,34 @@ describe('/api/v1/sites.geojson', () => {
 		const res = await fetch(`${testEnv.appUrl()}/api/v1/sites.geojson?bbox=1,2,three,4`);
 		expect(res.status).toBe(400);
 		expect((await res.json()).message).toContain('east is not a number');
+	});
+
+	it('answers with the one site summary shape and applies the shared filters', async () => {
+		const all = await (
+			await fetch(`${testEnv.appUrl()}/api/v1/sites.geojson?bbox=3,56,12,61`)
+		).json();
+		for (const f of all.features) siteFeaturePropertiesSchema.parse(f.properties);
+
+		// The same parameters the map and the dataset table use (src/lib/sites/filters.ts).
+		const filtered = await (
+			await fetch(
+				`${testEnv.appUrl()}/api/v1/sites.geojson?bbox=3,56,12,61&quality=constrained,indicative&minHeatFlow=60&q=kgs`
+			)
+		).json();
+		const props = filtered.features.map((f: { properties: unknown }) =>
+			siteFeaturePropertiesSchema.parse(f.properties)
+		);
+		const expected = all.features
+			.map((f: { properties: unknown }) => siteFeaturePropertiesSchema.parse(f.properties))
+			.filter(
+				(p: { code: string; qualityClass: string | null; heatFlowMWm2: number | null }) =>
+					p.code.toLowerCase().includes('kgs') &&
+					(p.qualityClass === 'constrained' || p.qualityClass === 'indicative') &&
+					p.heatFlowMWm2 !== null &&
+					p.heatFlowMWm2 >= 60
+			);
+		expect(expected.length).toBeGreaterThan(0);
+		expect(expected.length).toBeLessThan(all.features.length);
+		expect(props).toEqual(expected);
 	});
 });

@@ -3,7 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ANONYMOUS, type Viewer } from '../../src/lib/server/access';
 import { createDb } from '../../src/lib/server/db/client';
 import { dataset, organisation, site } from '../../src/lib/server/db/schema';
-import { visibleSitesInBox } from '../../src/lib/server/repositories/sites';
+import { listDatasetSites, visibleSitesInBox } from '../../src/lib/server/repositories/sites';
+import { parseSiteFilters } from '../../src/lib/sites/filters';
+import { parseSiteListQuery } from '../../src/lib/sites/list-query';
 import { testEnv } from './env';
 
 const { db, client } = createDb(testEnv.databaseUrl(), { max: 2 });
@@ -112,7 +114,7 @@ describe('which sites a viewer may see', () => {
 			'IT-released'
 		]);
 	});
-	it('shows platform administrators no more than the public (DEVELOPERS.md)', async () => {
+	it('shows platform administrators no more than the public (src/lib/server/access/README.md)', async () => {
 		expect(await codes({ ...ANONYMOUS, userId: 'a1', isPlatformAdmin: true })).toEqual([
 			'IT-public',
 			'IT-released'
@@ -122,5 +124,32 @@ describe('which sites a viewer may see', () => {
 		expect(await codes({ ...ANONYMOUS, userId: 'u2', roles: { 'someone-else': 'owner' } })).toEqual(
 			['IT-public', 'IT-released']
 		);
+	});
+});
+
+// Thermalith's own filter conventions (src/lib/sites/filters.ts); no external source.
+describe('the shared site filters in SQL', () => {
+	const member: Viewer = { ...ANONYMOUS, userId: 'u1', roles: { [orgId]: 'viewer' } };
+	it('narrow the map by heat-flow range (inclusive), code or name, and quality', async () => {
+		const f = parseSiteFilters(new URLSearchParams('minHeatFlow=61&maxHeatFlow=63&q=ED'));
+		const found = await visibleSitesInBox(db, member, box, f);
+		expect(found.map((s) => s.code).sort()).toEqual(['IT-embargoed', 'IT-released']);
+		const indicative = parseSiteFilters(new URLSearchParams('quality=indicative'));
+		expect(await visibleSitesInBox(db, member, box, indicative)).toEqual([]);
+	});
+	it('narrow a dataset table the same way; search text is never a LIKE pattern', async () => {
+		const rows = async (query: string) =>
+			(
+				await listDatasetSites(
+					db,
+					member,
+					datasetIds.public,
+					parseSiteListQuery(new URLSearchParams(query))
+				)
+			).rows.map((r) => r.code);
+		expect(await rows('maxHeatFlow=60')).toEqual(['IT-public']);
+		expect(await rows('minHeatFlow=61')).toEqual([]);
+		expect(await rows('q=it-PUB')).toEqual(['IT-public']);
+		expect(await rows('q=IT_p%25')).toEqual([]);
 	});
 });

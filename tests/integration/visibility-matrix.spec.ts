@@ -81,7 +81,7 @@ type Kind = keyof typeof KINDS;
 const kinds = Object.keys(KINDS) as Kind[];
 const MEMBERS: Kind[] = ['orgViewer', 'contributor', 'curator', 'owner'];
 
-/** Who may add data (and edit metadata) in each lifecycle state: DEVELOPERS.md, "Lifecycle". */
+/** Who may add data (and edit metadata) in each lifecycle state: src/lib/server/access/README.md, "Lifecycle". */
 const CHANGERS: Record<string, Kind[]> = {
 	draft: ['contributor', 'curator', 'owner'],
 	returned: ['contributor', 'curator', 'owner'],

@@ -3,7 +3,7 @@ import { crossValidate, crossValidationResiduals } from './crossval';
 import { fitVariogram } from './fit';
 import { krigePoint } from './kriging';
 import { createRandom } from '../foundation/random';
-import { simulateGaussianField } from './random';
+import { simulateGaussianField } from './simulate';
 import { loadFixture } from './fixtures/load';
 import type { Sample, Variogram } from './types';
 

@@ -30,4 +30,4 @@ export {
 	type ContourCollection,
 	type ContourProperties
 } from './contours';
-export { simulateGaussianField } from './random';
+export { simulateGaussianField } from './simulate';

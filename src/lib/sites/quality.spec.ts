@@ -28,9 +28,8 @@ describe('qualityClass', () => {
 });
 
 describe('qualityLabel', () => {
-	it('labels stored classes and shows anything else as stored', () => {
+	it('labels stored classes and shows a dash when none was computed', () => {
 		expect(qualityLabel('well-constrained')).toBe('Well constrained');
 		expect(qualityLabel(null)).toBe('—');
-		expect(qualityLabel('legacy-A')).toBe('legacy-A');
 	});
 });

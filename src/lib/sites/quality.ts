@@ -22,10 +22,9 @@ export const QUALITY_LABELS: Record<QualityClass, string> = {
 	unconstrained: 'Unconstrained'
 };
 
-/** The label of a stored class, or the raw value for anything unexpected. */
-export function qualityLabel(value: string | null | undefined): string {
-	if (value == null) return '—';
-	return QUALITY_LABELS[value as QualityClass] ?? value;
+/** The label of a stored class; '—' when none was computed (the column is the quality_class enum). */
+export function qualityLabel(value: QualityClass | null | undefined): string {
+	return value == null ? '—' : QUALITY_LABELS[value];
 }
 
 export type QualityMethod = HeatFlowMethod;

@@ -1,8 +1,9 @@
 import { fireEvent, render, screen } from '@testing-library/svelte';
 import { describe, expect, it, vi } from 'vitest';
+import type { SiteFeatureProperties } from '$lib/sites/summary';
 import SitePanel from './SitePanel.svelte';
 
-const site = {
+const site: SiteFeatureProperties = {
 	id: '0b7c6a3e-0000-4000-8000-000000000007',
 	code: 'KGS-007',
 	name: 'Holmby borehole',
@@ -10,6 +11,7 @@ const site = {
 	heatFlowSigmaMWm2: 6.04,
 	method: 'bullard',
 	qualityClass: 'constrained',
+	yearMeasured: 1987,
 	datasetTitle: 'Demo set',
 	organisationName: 'Demo Survey'
 };

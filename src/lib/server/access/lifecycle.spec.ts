@@ -3,7 +3,7 @@ import { datasetRights } from './rights';
 import { transitionRefusal, type TransitionName } from './lifecycle';
 import { ANONYMOUS, type Viewer } from './viewer';
 
-/* The lifecycle rules as a table (DEVELOPERS.md, "Lifecycle"); common practice, no source. */
+/* The lifecycle rules as a table (README.md here, "Lifecycle"); common practice, no source. */
 const ORG = 'org-a';
 const as = (role: string | null, extra: Partial<Viewer> = {}): Viewer => ({
 	...ANONYMOUS,

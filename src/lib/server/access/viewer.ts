@@ -1,5 +1,5 @@
 /**
- * Who is asking. Built once per request in hooks.server.ts (see ../viewer.ts); anonymous visitors
+ * Who is asking. Built once per request in hooks.server.ts (see ../session-viewer.ts); anonymous visitors
  * have no user id and no memberships.
  */
 export interface Viewer {
@@ -8,7 +8,7 @@ export interface Viewer {
 	emailVerified: boolean;
 	/** The viewer's role in each organisation they belong to, by organisation id. */
 	roles: Record<string, string>;
-	/** Runs the platform (accounts, organisations); sees no unpublished data (DEVELOPERS.md). */
+	/** Runs the platform (accounts, organisations); sees no unpublished data (README.md here). */
 	isPlatformAdmin: boolean;
 }
 

@@ -36,8 +36,8 @@ function released(): SQL {
  * - Anyone: released datasets (above).
  * - Members whose role has `dataset:read-private` (every organisation role): all datasets of their
  *   organisation, whatever the status or visibility.
- * - Platform administrators: nothing more than their memberships give (DEVELOPERS.md, "Platform
- *   administrators").
+ * - Platform administrators: nothing more than their memberships give (README.md
+ *   here).
  */
 export function visibleDatasets(viewer: Viewer): SQL {
 	const own = organisationsWhere(viewer, 'dataset', 'read-private');

@@ -4,7 +4,7 @@ import type { Viewer } from '../access';
 import type { Db } from '../db/client';
 import { importBatch, site, type NewSite } from '../db/schema';
 import type { ImportPayload } from './payload';
-import { serverPreview } from './preview';
+import { serverPreview } from './server-preview';
 
 const CHUNK_ROWS = 1000;
 

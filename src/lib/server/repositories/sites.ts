@@ -1,6 +1,21 @@
-import { and, asc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
-import { NO_FILTERS, type SiteFilters } from '$lib/map/filters';
-import { visibleOnMaps, type Viewer } from '../access';
+import {
+	and,
+	asc,
+	count,
+	desc,
+	eq,
+	gte,
+	ilike,
+	inArray,
+	lte,
+	or,
+	sql,
+	type SQL
+} from 'drizzle-orm';
+import { NO_FILTERS, type SiteFilters } from '$lib/sites/filters';
+import type { SiteListQuery } from '$lib/sites/list-query';
+import type { SiteSummary } from '$lib/sites/summary';
+import { visibleDatasets, visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { dataset, organisation, site } from '../db/schema';
 
@@ -11,18 +26,37 @@ export interface BoundingBox {
 	north: number;
 }
 
-export interface SiteSummary {
-	id: string;
-	code: string;
-	name: string | null;
-	lon: number;
-	lat: number;
-	heatFlowMWm2: number | null;
-	heatFlowSigmaMWm2: number | null;
-	method: string;
-	qualityClass: string | null;
-	datasetTitle: string;
-	organisationName: string;
+/**
+ * The columns of a SiteSummary (the one shape, $lib/sites/summary.ts): `satisfies` keeps the key
+ * set equal to the type's, and the readers' return types check each column's type.
+ */
+const siteSummaryColumns = {
+	id: site.id,
+	code: site.code,
+	name: site.name,
+	lon: sql<number>`ST_X(${site.location})`,
+	lat: sql<number>`ST_Y(${site.location})`,
+	heatFlowMWm2: site.heatFlowMWm2,
+	heatFlowSigmaMWm2: site.heatFlowSigmaMWm2,
+	method: site.method,
+	qualityClass: site.qualityClass,
+	yearMeasured: site.yearMeasured,
+	datasetTitle: dataset.title,
+	organisationName: organisation.name
+} satisfies Record<keyof SiteSummary, unknown>;
+
+/** The shared site filters ($lib/sites/filters.ts) as SQL; `page` is the caller's business. */
+function filterConditions(f: SiteFilters): SQL[] {
+	const conditions: SQL[] = [];
+	if (f.quality.length) conditions.push(inArray(site.qualityClass, f.quality));
+	if (f.method.length) conditions.push(inArray(site.method, f.method));
+	if (f.minHeatFlow !== null) conditions.push(gte(site.heatFlowMWm2, f.minHeatFlow));
+	if (f.maxHeatFlow !== null) conditions.push(lte(site.heatFlowMWm2, f.maxHeatFlow));
+	if (f.q) {
+		const pattern = `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+		conditions.push(or(ilike(site.code, pattern), ilike(site.name, pattern))!);
+	}
+	return conditions;
 }
 
 /**
@@ -37,31 +71,55 @@ export async function visibleSitesInBox(
 	limit = 100_000
 ): Promise<SiteSummary[]> {
 	const envelope = sql`ST_MakeEnvelope(${box.west}, ${box.south}, ${box.east}, ${box.north}, 4326)`;
-	const conditions: SQL[] = [sql`${site.location} && ${envelope}`, visibleOnMaps(viewer)];
-	if (filters.quality.length) conditions.push(inArray(site.qualityClass, filters.quality));
-	if (filters.method.length) conditions.push(inArray(site.method, filters.method));
-	if (filters.minHeatFlowMWm2 !== null)
-		conditions.push(gte(site.heatFlowMWm2, filters.minHeatFlowMWm2));
-	if (filters.maxHeatFlowMWm2 !== null)
-		conditions.push(lte(site.heatFlowMWm2, filters.maxHeatFlowMWm2));
 	return db
-		.select({
-			id: site.id,
-			code: site.code,
-			name: site.name,
-			lon: sql<number>`ST_X(${site.location})`,
-			lat: sql<number>`ST_Y(${site.location})`,
-			heatFlowMWm2: site.heatFlowMWm2,
-			heatFlowSigmaMWm2: site.heatFlowSigmaMWm2,
-			method: site.method,
-			qualityClass: site.qualityClass,
-			datasetTitle: dataset.title,
-			organisationName: organisation.name
-		})
+		.select(siteSummaryColumns)
 		.from(site)
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
 		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
-		.where(and(...conditions))
+		.where(
+			and(sql`${site.location} && ${envelope}`, visibleOnMaps(viewer), ...filterConditions(filters))
+		)
 		.orderBy(asc(site.code))
 		.limit(limit);
+}
+
+const SORTS = {
+	code: site.code,
+	name: site.name,
+	heatFlowMWm2: site.heatFlowMWm2,
+	qualityClass: site.qualityClass,
+	method: site.method,
+	yearMeasured: site.yearMeasured
+};
+
+/** One page of a dataset's sites the viewer may see, sorted and filtered in the database. */
+export async function listDatasetSites(
+	db: Db,
+	viewer: Viewer,
+	datasetId: string,
+	query: SiteListQuery
+): Promise<{ rows: SiteSummary[]; total: number }> {
+	const where = and(
+		eq(site.datasetId, datasetId),
+		visibleDatasets(viewer),
+		...filterConditions(query)
+	);
+	const order = query.dir === 'desc' ? desc(SORTS[query.sort]) : asc(SORTS[query.sort]);
+	const [rows, [{ total }]] = await Promise.all([
+		db
+			.select(siteSummaryColumns)
+			.from(site)
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
+			.where(where)
+			.orderBy(order, asc(site.code))
+			.limit(query.pageSize)
+			.offset((query.page - 1) * query.pageSize),
+		db
+			.select({ total: count() })
+			.from(site)
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(where)
+	]);
+	return { rows, total };
 }

@@ -13,11 +13,15 @@ import {
 } from 'drizzle-orm/pg-core';
 // Relative, not $lib: drizzle-kit and the seed load the schema outside SvelteKit.
 import { HEAT_FLOW_METHODS } from '../../../sites/methods';
+import { QUALITY_CLASSES } from '../../../sites/quality';
 import { pointWgs84 } from '../point';
 import { dataset } from './datasets';
 
 /** How the heat flow was determined (the trade's own categories). */
 export const heatFlowMethod = pgEnum('heat_flow_method', HEAT_FLOW_METHODS);
+
+/** The product's own quality classes (defined in sites/quality.ts, the one list). */
+export const qualityClassEnum = pgEnum('quality_class', QUALITY_CLASSES);
 
 /**
  * One heat-flow determination at a place. Values are stored in SI-derived display units named in
@@ -57,7 +61,7 @@ export const site = pgTable(
 		yearMeasured: smallint(),
 		remarks: text(),
 		/** The product's own quality class, computed from uncertainty, method and sample count. */
-		qualityClass: text(),
+		qualityClass: qualityClassEnum(),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},

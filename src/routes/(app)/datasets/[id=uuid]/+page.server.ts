@@ -11,7 +11,7 @@ import {
 	updateDatasetMetadata
 } from '$lib/server/repositories/datasets';
 import { lastReturnComment, transitionDataset } from '$lib/server/repositories/lifecycle';
-import { listDatasetSites } from '$lib/server/repositories/site-list';
+import { listDatasetSites } from '$lib/server/repositories/sites';
 import { parseForm } from '$lib/schemas/form';
 import { datasetSchema, transitionSchema } from '$lib/schemas/dataset';
 import { parseSiteListQuery } from '$lib/sites/list-query';

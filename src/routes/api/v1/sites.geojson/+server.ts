@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { parseBBox } from '$lib/geo/bbox';
-import { parseSiteFilters } from '$lib/map/filters';
+import { parseSiteFilters } from '$lib/sites/filters';
 import { getDb } from '$lib/server/db';
 import { visibleSitesInBox } from '$lib/server/repositories/sites';
 import type { RequestHandler } from './$types';

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { issuesToCsv } from '$lib/imports';
 import { getDb } from '$lib/server/db';
 import { requireUploader, requireUser } from '$lib/server/guards';
-import { serverPreview } from '$lib/server/imports/preview';
+import { serverPreview } from '$lib/server/imports/server-preview';
 import { limitUser } from '$lib/server/rate-limit';
 import type { RequestHandler } from './$types';
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { HEAT_FLOW_CLASSES, heatFlowColour, NO_VALUE_COLOUR } from './heatFlowScale';
+import { HEAT_FLOW_CLASSES, heatFlowColour, NO_VALUE_COLOUR } from './heat-flow-scale';
 
 // The classes are Thermalith's own (common practice, no source for the exact breaks).
 describe('heat-flow colour classes', () => {
