@@ -345,7 +345,7 @@ export function apiDoc(base: string): OgcDocument {
 		[`${base}/collections/{collectionId}`, 'one collection: extent (CRS84) and links'],
 		[
 			`${base}/collections/{collectionId}/items`,
-			`features as GeoJSON; bbox=west,south,east,north (CRS84), datetime (RFC 3339 instant or start/end with ".." open), limit (1 to ${MAX_LIMIT}, default ${DEFAULT_LIMIT}; more is treated as ${MAX_LIMIT}); follow the next and prev links to page`
+			`features as GeoJSON; bbox=west,south,east,north (CRS84), datetime on the year measured (RFC 3339 instant or start/end with ".." open; sites without a year always match), limit (1 to ${MAX_LIMIT}, default ${DEFAULT_LIMIT}; more is treated as ${MAX_LIMIT}); follow the next and prev links to page`
 		],
 		[`${base}/collections/{collectionId}/items/{featureId}`, 'one feature'],
 		['f=json | f=html', 'format on any resource (otherwise chosen from the Accept header)']
