@@ -47,7 +47,20 @@ export function ogcGet(
 		}
 		const format = chooseFormat(event.url, event.request.headers.get('accept'));
 		if (typeof format !== 'string') return errorResponse(format);
-		const doc = await build(event);
+		let doc: OgcDocument | OgcError;
+		try {
+			doc = await build(event);
+		} catch (err) {
+			// Keep the one error body (and CORS) for failures too; the id links the answer to the log.
+			const errorId = crypto.randomUUID();
+			console.error(`[error ${errorId}] GET ${event.url.pathname}`, err);
+			doc = {
+				status: 500,
+				code: 'internal_error',
+				message: 'Something went wrong on our side.',
+				details: { errorId }
+			};
+		}
 		if (isError(doc)) return errorResponse(doc);
 		if (format === 'html') {
 			const page = html(doc);
