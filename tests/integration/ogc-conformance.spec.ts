@@ -228,6 +228,15 @@ describe('OGC API – Features Core: features', () => {
 		expect(body.error.code).toBe('unknown_parameter');
 		expect(body.error.message).toContain('colour');
 		expect((await get('/ogc/collections?limit=3')).status).toBe(400);
+		// crs and bbox-crs are understood for CRS84, the one CRS served, and refused otherwise.
+		const crs84 = encodeURIComponent('http://www.opengis.net/def/crs/OGC/1.3/CRS84');
+		expect((await get(items(`bbox=${BOX}&bbox-crs=${crs84}&crs=${crs84}`))).status).toBe(200);
+		const feature = `/ogc/collections/sites/items/${fx.open.sites[0]}`;
+		expect((await get(`${feature}?crs=${crs84}`)).status).toBe(200);
+		const refused = await get(`${feature}?crs=EPSG:3857`);
+		expect(refused.status).toBe(400);
+		expect((await refused.json()).error.details.parameter).toBe('crs');
+		expect((await get(`${feature}?limit=3`)).status).toBe(400);
 	});
 
 	it('/req/core/fc-links, /req/core/fc-rel-type, /req/core/fc-numberMatched, /req/core/fc-numberReturned, /req/core/fc-timeStamp: following next covers every feature once; prev walks back', async () => {

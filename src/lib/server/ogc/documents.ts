@@ -1,4 +1,5 @@
 import {
+	CRS84_URI,
 	DEFAULT_LIMIT,
 	ITEMS_PARAMETERS,
 	MAX_LIMIT,
@@ -14,7 +15,7 @@ import type { ItemsPage, OgcCollectionRow, OgcSite } from './repository';
  * JSON (GeoJSON for features) and as a small view model the HTML page renders.
  */
 
-export const CRS84 = 'http://www.opengis.net/def/crs/OGC/1.3/CRS84';
+export const CRS84 = CRS84_URI;
 const GREGORIAN = 'http://www.opengis.net/def/uom/ISO-8601/0/Gregorian';
 
 /** Only the conformance classes this server passes (tests/integration/ogc-conformance.spec.ts). */

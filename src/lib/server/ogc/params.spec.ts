@@ -154,3 +154,17 @@ describe('collection ids', () => {
 			expect(parseCollectionId(bad), bad).toBeNull();
 	});
 });
+
+describe('crs and bbox-crs (Part 2 names, CRS84 only)', () => {
+	it('accepts CRS84 (also in brackets) and refuses any other CRS', () => {
+		const crs84 = 'http://www.opengis.net/def/crs/OGC/1.3/CRS84';
+		expect(parseItemsQuery(new URLSearchParams({ crs: crs84, 'bbox-crs': `[${crs84}]` })).ok).toBe(
+			true
+		);
+		expect(
+			parseItemsQuery(
+				new URLSearchParams({ 'bbox-crs': 'http://www.opengis.net/def/crs/EPSG/0/3857' })
+			)
+		).toMatchObject({ ok: false, parameter: 'bbox-crs' });
+	});
+});

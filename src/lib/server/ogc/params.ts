@@ -43,9 +43,35 @@ export interface ItemsQuery {
 	cursor: Cursor;
 }
 
-/** Parameters each kind of resource accepts; `f` (json or html) is a declared vendor parameter. */
-export const ITEMS_PARAMETERS = ['limit', 'bbox', 'datetime', 'after', 'before', 'f'] as const;
+/**
+ * Parameters each kind of resource accepts; `f` (json or html) is a declared vendor parameter.
+ * `crs` and `bbox-crs` (Part 2) are accepted when they name CRS84, the one CRS served, because
+ * collections list it and some clients then send it; any other CRS is refused.
+ */
+export const ITEMS_PARAMETERS = [
+	'limit',
+	'bbox',
+	'datetime',
+	'after',
+	'before',
+	'f',
+	'crs',
+	'bbox-crs'
+] as const;
+export const FEATURE_PARAMETERS = ['f', 'crs'] as const;
 export const RESOURCE_PARAMETERS = ['f'] as const;
+
+export const CRS84_URI = 'http://www.opengis.net/def/crs/OGC/1.3/CRS84';
+
+/** The first of `crs` / `bbox-crs` that names another CRS than CRS84, as a refusal. */
+export function crsRefusal(params: URLSearchParams) {
+	for (const name of ['crs', 'bbox-crs']) {
+		const value = params.get(name);
+		if (value !== null && value.replace(/^\[|\]$/g, '') !== CRS84_URI)
+			return fail(name, `${name} must be ${CRS84_URI} (the only CRS served); got "${value}"`);
+	}
+	return null;
+}
 
 /** The first query parameter that is not in `known`, or null. */
 export function unknownParameter(params: URLSearchParams, known: readonly string[]): string | null {
@@ -175,6 +201,8 @@ export function parseItemsQuery(params: URLSearchParams): Parsed<ItemsQuery> {
 	if (!datetime.ok) return datetime;
 	const cursor = parseCursor(params);
 	if (!cursor.ok) return cursor;
+	const crs = crsRefusal(params);
+	if (crs) return crs;
 	return {
 		ok: true,
 		value: { limit: limit.value, bbox: bbox.value, datetime: datetime.value, cursor: cursor.value }
