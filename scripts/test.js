@@ -28,6 +28,9 @@ await orchestrate(async () => {
 	const { run, startService, stopAll } = await import('./lib/proc.js');
 	const { ensureChromium, CHROMIUM_PATH } = await import('./lib/chromium.js');
 	await ensureChromium();
+	// GDAL's OGC API client reads /ogc in the tests, as a desktop GIS would.
+	const { ensureGdal } = await import('./lib/bench-gdal.js');
+	await ensureGdal({ install: true });
 
 	const config = resolveConfig('test');
 	const { validateEnvironment } = await import('./lib/validate-env.js');

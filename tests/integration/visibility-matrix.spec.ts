@@ -368,6 +368,60 @@ const ROUTES: Record<string, Row> = {
 			}
 		]
 	},
+	'/ogc': { none: 'OGC API landing page: links only' },
+	'/ogc/api': { none: 'OGC API description: static text' },
+	'/ogc/conformance': { none: 'OGC API conformance classes: static list' },
+	'/ogc/collections': {
+		checks: [
+			{
+				name: 'OGC collections (one per published dataset)',
+				run: async (k, c) => {
+					const body = await text(k, '/ogc/collections?f=json');
+					const published = CASES[c].status === 'published';
+					expect(body.includes(`dataset-${ids[c].dataset}`)).toBe(sees(k, c) && published);
+				}
+			}
+		]
+	},
+	'/ogc/collections/[collectionId]': {
+		checks: [
+			{
+				name: 'OGC collection of a dataset',
+				run: async (k, c) => {
+					const res = await get(k, `/ogc/collections/dataset-${ids[c].dataset}?f=json`);
+					if (!(sees(k, c) && CASES[c].status === 'published')) return expectHidden(res);
+					expect(res.status).toBe(200);
+					expect(await res.text()).toContain(title(c));
+				}
+			}
+		]
+	},
+	'/ogc/collections/[collectionId]/items': {
+		checks: [
+			{
+				name: 'OGC items of all sites (GeoJSON)',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const res = await get(k, `/ogc/collections/sites/items?bbox=${bbox}&f=json`);
+					const found = (await res.json()).features.map((f: { id: string }) => f.id);
+					expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
+				}
+			}
+		]
+	},
+	'/ogc/collections/[collectionId]/items/[featureId]': {
+		checks: [
+			{
+				name: 'OGC feature by id',
+				run: async (k, c) => {
+					const res = await get(k, `/ogc/collections/sites/items/${ids[c].site}?f=json`);
+					if (!(sees(k, c) && CASES[c].map)) return expectHidden(res);
+					expect(res.status).toBe(200);
+					expect((await res.json()).id).toBe(ids[c].site);
+				}
+			}
+		]
+	},
 	'/api/v1/attachments': {
 		checks: [
 			{
