@@ -7,7 +7,8 @@ import { stampClientAddress } from '$lib/server/auth/client-address';
 import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
-import { stopJobs } from '$lib/server/jobs/boss';
+import { jobs, stopJobs } from '$lib/server/jobs/boss';
+import { startHousekeeping } from '$lib/server/jobs/housekeeping';
 import { closeMailer, startMailWorker } from '$lib/server/mail';
 import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
@@ -25,9 +26,11 @@ export const init: ServerInit = async () => {
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
-		// Queued jobs (mail) are taken by this process; a queue that is not reachable yet is retried
+		// Queued jobs (mail, the hourly housekeeping) are taken by this process; a queue that is not reachable yet is retried
 		// by pg-boss once it is, and must not keep the app from starting.
-		startMailWorker().catch((err) => console.warn('job workers not started:', err.message));
+		startMailWorker()
+			.then(async () => startHousekeeping(await jobs(config().DATABASE_URL), getDb()))
+			.catch((err) => console.warn('job workers not started:', err.message));
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.
 	process.once('sveltekit:shutdown', () => {

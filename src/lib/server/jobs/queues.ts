@@ -6,8 +6,13 @@ import type PgBoss from 'pg-boss';
  * delivery is retried with exponential backoff (10 s, 20 s, 40 s, … about 2.8 hours in all).
  */
 export const QUEUES = {
-	mail: { name: 'mail', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 120 }
+	mail: { name: 'mail', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 120 },
+	// Periodic clean-up (expired pending uploads); a missed run is simply done by the next one.
+	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 }
 } as const satisfies Record<string, PgBoss.Queue>;
+
+/** Cron schedules (pg-boss keeps one per queue, whichever instance sets it; UTC). */
+export const SCHEDULES = { housekeeping: '17 * * * *' } as const;
 
 /** Create every queue (pg-boss 10 needs a queue before its first job); safe to repeat. */
 export async function ensureQueues(boss: PgBoss, queues: PgBoss.Queue[] = Object.values(QUEUES)) {

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, lt } from 'drizzle-orm';
 import { datasetRights, notFound, requireUuid, visibleDatasets, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { attachment, dataset, site } from '../db/schema';
@@ -123,4 +123,16 @@ export async function forgetPendingAttachment(db: Db, file: ChangeableAttachment
 /** Delete a file's row (its objects are removed by the caller). */
 export async function deleteAttachmentRow(db: Db, file: ChangeableAttachment) {
 	await db.delete(attachment).where(eq(attachment.id, file.id));
+}
+
+/**
+ * Housekeeping (a system job, not a viewer): forget files announced before `cutoff` whose bytes
+ * never arrived. Returns how many were removed.
+ */
+export async function expirePendingAttachments(db: Db, cutoff: Date): Promise<number> {
+	const removed = await db
+		.delete(attachment)
+		.where(and(eq(attachment.status, 'pending'), lt(attachment.uploadedAt, cutoff)))
+		.returning({ id: attachment.id });
+	return removed.length;
 }
