@@ -16,7 +16,9 @@ export function run(cmd, args, options = {}) {
 		const name = `task-${child.pid}`;
 		if (child.pid) {
 			tasks.add(child);
-			recordService(name, child.pid, args[0] ?? cmd);
+			// The marker that identifies the process later: a script's path, or the command itself.
+			const marker = args[0]?.includes('/') ? args[0] : [cmd, ...args].join(' ').slice(0, 200);
+			recordService(name, child.pid, marker);
 		}
 		child.on('error', reject);
 		child.on('exit', (code, signal) => {
