@@ -48,10 +48,17 @@ describe('a worker killed during a queued job', () => {
 		};
 		const id = (await boss.send(queue, message))!;
 
-		const tsx = path.resolve('node_modules/tsx/dist/cli.mjs');
+		// `node --import tsx`, not the tsx command: that one runs the script in a child process of
+		// its own, which a SIGKILL of the command would leave running.
 		const child = spawn(
 			process.execPath,
-			[tsx, path.resolve('tests/integration/helpers/hanging-mail-worker.ts'), schema, queue],
+			[
+				'--import',
+				'tsx',
+				path.resolve('tests/integration/helpers/hanging-mail-worker.ts'),
+				schema,
+				queue
+			],
 			{ env: { ...process.env }, stdio: ['ignore', 'pipe', 'pipe'] }
 		);
 		let out = '';
