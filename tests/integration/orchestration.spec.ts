@@ -59,7 +59,8 @@ function launch(script: string, args: string[], storage: string): Run {
 	return run;
 }
 
-async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 150_000) {
+// Generous: a start may have to rebuild the app on a busy machine; a state, not a time, ends the wait.
+async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 300_000) {
 	const deadline = Date.now() + timeoutMs;
 	while (Date.now() < deadline) {
 		if (await check()) return;
@@ -164,7 +165,7 @@ describe('npm start', () => {
 		expect(await second.exited).toBe(0);
 		expect(second.output()).toContain('everything this run started is stopped');
 		expect(await anyListening(ports)).toBeNull();
-	}, 300_000);
+	}, 600_000);
 
 	it('when the run and its watcher are both killed, the next start stops the leftovers and serves', async () => {
 		const first = launch('scripts/start.js', [], storage);
@@ -186,7 +187,7 @@ describe('npm start', () => {
 		second.child.kill('SIGTERM');
 		expect(await second.exited).toBe(0);
 		expect(await anyListening(ports)).toBeNull();
-	}, 300_000);
+	}, 600_000);
 
 	it('a service that dies stops the whole run', async () => {
 		const run = launch('scripts/start.js', [], storage);
@@ -195,7 +196,7 @@ describe('npm start', () => {
 		expect(await run.exited).toBe(1);
 		expect(run.output()).toContain('the s3 service stopped on its own');
 		expect(await anyListening(ports)).toBeNull();
-	}, 300_000);
+	}, 600_000);
 });
 
 describe("npm test's services", () => {
@@ -217,5 +218,5 @@ describe("npm test's services", () => {
 		second.child.kill('SIGINT');
 		await second.exited;
 		expect(await anyListening(ports)).toBeNull();
-	}, 300_000);
+	}, 600_000);
 });
