@@ -5,13 +5,13 @@
  * checksums with what was there before. A restore is refused while `npm start` runs, and a damaged
  * backup is refused before anything is changed.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import postgres from 'postgres';
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
+import { launchScript, stopScripts, until } from './helpers/script-runs';
 
 const ROOT = path.resolve('.');
 // Ports of their own: 70 above this test run's, clear of the other profiles' blocks and of the
@@ -22,56 +22,14 @@ const root = path.join(ROOT, 'storage', 'test', `backup-${process.pid}`);
 const storage = path.join(root, 'local');
 const databaseUrl = `postgres://postgres@127.0.0.1:${PORTS.postgres}/thermalith`;
 
-function userEnv(): NodeJS.ProcessEnv {
-	const env: NodeJS.ProcessEnv = {};
-	const inherited =
-		/^(DATABASE_URL|S3_|SMTP_|MAIL_|ORIGIN|HOST|PORT|BETTER_AUTH_SECRET|NODE_ENV|THERMALITH_|TEST_APP_URL|BODY_SIZE_LIMIT|PUBLIC_)/;
-	for (const [k, v] of Object.entries(process.env)) if (!inherited.test(k)) env[k] = v;
-	return {
-		...env,
-		NO_COLOR: '1',
-		THERMALITH_PORT_OFFSET: String(OFFSET),
-		THERMALITH_STORAGE_DIR: storage,
-		THERMALITH_BUILD_DIR: 'build-test'
-	};
-}
-
-interface Run {
-	child: ChildProcess;
-	output: () => string;
-	exited: Promise<number | null>;
-}
-const runs: Run[] = [];
-
-function launch(script: string, args: string[] = []): Run {
-	const child = spawn(process.execPath, [path.join(ROOT, script), ...args], {
-		cwd: ROOT,
-		env: userEnv(),
-		stdio: ['ignore', 'pipe', 'pipe']
-	});
-	let text = '';
-	child.stdout!.on('data', (d) => (text += d));
-	child.stderr!.on('data', (d) => (text += d));
-	const exited = new Promise<number | null>((resolve) => child.once('exit', (c) => resolve(c)));
-	const run = { child, output: () => text, exited };
-	runs.push(run);
-	return run;
-}
+const launch = (script: string, args: string[] = []) =>
+	launchScript(script, args, { offset: OFFSET, storage });
 
 /** Run a script to its end: its exit code and output. */
 async function complete(script: string, args: string[] = []) {
 	const run = launch(script, args);
 	const code = await run.exited;
 	return { code, output: run.output() };
-}
-
-async function until(what: string, check: () => boolean, timeoutMs = 240_000) {
-	const deadline = Date.now() + timeoutMs;
-	while (Date.now() < deadline) {
-		if (check()) return;
-		await new Promise((r) => setTimeout(r, 200));
-	}
-	throw new Error(`timed out waiting for ${what}`);
 }
 
 /** SHA-256 of every file of the object store, computed here rather than by the scripts. */
@@ -105,14 +63,7 @@ async function rowCounts(): Promise<Record<string, number>> {
 	}
 }
 
-afterEach(async () => {
-	for (const run of runs.splice(0)) {
-		if (run.child.exitCode === null && run.child.signalCode === null) {
-			run.child.kill('SIGINT');
-			await run.exited;
-		}
-	}
-});
+afterEach(stopScripts);
 
 afterAll(() => fs.rmSync(root, { recursive: true, force: true }));
 

@@ -4,12 +4,12 @@
  * They must never leave a service running that blocks the next run: not after a fatal error, a
  * signal, a service that dies, nor a SIGKILL of the orchestrator (and of its watcher).
  */
-import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { clusterDir } from '../../scripts/lib/postgres.js';
+import { launchScript, stopScripts, until } from './helpers/script-runs';
 
 const ROOT = path.resolve('.');
 // Ports of their own: 50 above this test run's, clear of the other profiles' blocks.
@@ -20,54 +20,8 @@ const shifted = (ports: Record<string, number>) =>
 	Object.fromEntries(Object.entries(ports).map(([k, v]) => [k, v + OFFSET]));
 const storageRoot = path.join(ROOT, 'storage', 'test', `orchestration-${process.pid}`);
 
-/** The user's environment, without the settings `npm test` exported for its own services. */
-function userEnv(storage: string): NodeJS.ProcessEnv {
-	const env: NodeJS.ProcessEnv = {};
-	const inherited =
-		/^(DATABASE_URL|S3_|SMTP_|MAIL_|ORIGIN|HOST|PORT|BETTER_AUTH_SECRET|NODE_ENV|THERMALITH_|TEST_APP_URL|BODY_SIZE_LIMIT|PUBLIC_)/;
-	for (const [k, v] of Object.entries(process.env)) if (!inherited.test(k)) env[k] = v;
-	return {
-		...env,
-		NO_COLOR: '1',
-		THERMALITH_PORT_OFFSET: String(OFFSET),
-		THERMALITH_STORAGE_DIR: storage,
-		// Reuse the build `npm test` made instead of building a second copy.
-		THERMALITH_BUILD_DIR: 'build-test'
-	};
-}
-
-interface Run {
-	child: ChildProcess;
-	output: () => string;
-	exited: Promise<number | null>;
-}
-
-const runs: Run[] = [];
-
-function launch(script: string, args: string[], storage: string): Run {
-	const child = spawn(process.execPath, [path.join(ROOT, script), ...args], {
-		cwd: ROOT,
-		env: userEnv(storage),
-		stdio: ['ignore', 'pipe', 'pipe']
-	});
-	let text = '';
-	child.stdout.on('data', (d) => (text += d));
-	child.stderr.on('data', (d) => (text += d));
-	const exited = new Promise<number | null>((resolve) => child.once('exit', (c) => resolve(c)));
-	const run = { child, output: () => text, exited };
-	runs.push(run);
-	return run;
-}
-
-// Generous: a start may have to rebuild the app on a busy machine; a state, not a time, ends the wait.
-async function until(what: string, check: () => boolean | Promise<boolean>, timeoutMs = 300_000) {
-	const deadline = Date.now() + timeoutMs;
-	while (Date.now() < deadline) {
-		if (await check()) return;
-		await new Promise((r) => setTimeout(r, 200));
-	}
-	throw new Error(`timed out waiting for ${what}`);
-}
+const launch = (script: string, args: string[], storage: string) =>
+	launchScript(script, args, { offset: OFFSET, storage });
 
 function listening(port: number): Promise<boolean> {
 	return new Promise((resolve) => {
@@ -107,15 +61,7 @@ async function healthy(port: number) {
 	}
 }
 
-afterEach(async () => {
-	// A failed assertion must not leave its run behind for the next test.
-	for (const run of runs.splice(0)) {
-		if (run.child.exitCode === null) {
-			run.child.kill('SIGINT');
-			await run.exited;
-		}
-	}
-});
+afterEach(stopScripts);
 
 afterAll(() => {
 	// As root in a private checkout the clusters live under /var/tmp (clusterDir): remove those too.

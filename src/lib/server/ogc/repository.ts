@@ -229,57 +229,29 @@ const ALL_SITES = {
 		'Every heat-flow site you may see on the map, one point feature each (heat flow in mW/m², with its dataset, licence and citation).'
 };
 
-/** The collections this viewer may see: all visible sites, then each visible published dataset. */
-export async function collectionsFor(db: Db, viewer: Viewer): Promise<OgcCollectionRow[]> {
-	const [[all], datasets] = await Promise.all([
-		db
-			.select(extentColumns)
-			.from(site)
-			.innerJoin(dataset, eq(site.datasetId, dataset.id))
-			.where(and(...inCollection(viewer, { kind: 'sites' }))),
-		db
-			.select({
-				id: dataset.id,
-				title: dataset.title,
-				abstract: dataset.abstract,
-				licence: dataset.licence,
-				citation: dataset.citation,
-				...extentColumns
-			})
-			.from(dataset)
-			.leftJoin(site, eq(site.datasetId, dataset.id))
-			.where(and(visibleOnMaps(viewer), eq(dataset.status, 'published')))
-			.groupBy(dataset.id)
-			.orderBy(asc(dataset.title), asc(dataset.id))
-	]);
-	return [
-		{ ref: { kind: 'sites' }, ...ALL_SITES, licence: null, citation: null, extent: extentOf(all) },
-		...datasets.map((d) => ({
-			ref: { kind: 'dataset', datasetId: d.id } as const,
-			title: d.title,
-			description: d.abstract,
-			licence: d.licence,
-			citation: d.citation,
-			extent: extentOf(d)
-		}))
-	];
+/** The extent of every site this viewer sees on the map (the `sites` collection). */
+async function allSitesCollection(db: Db, viewer: Viewer): Promise<OgcCollectionRow> {
+	const [all] = await db
+		.select(extentColumns)
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(and(...inCollection(viewer, { kind: 'sites' })));
+	return {
+		ref: { kind: 'sites' },
+		...ALL_SITES,
+		licence: null,
+		citation: null,
+		extent: extentOf(all)
+	};
 }
 
-/** One collection, or null when it does not exist or is not visible (the same answer). */
-export async function collectionFor(
+/** Visible published datasets as collections (one, when `datasetId` is given), by title. */
+async function datasetCollections(
 	db: Db,
 	viewer: Viewer,
-	ref: CollectionRef
-): Promise<OgcCollectionRow | null> {
-	if (ref.kind === 'sites') {
-		const [all] = await db
-			.select(extentColumns)
-			.from(site)
-			.innerJoin(dataset, eq(site.datasetId, dataset.id))
-			.where(and(...inCollection(viewer, ref)));
-		return { ref, ...ALL_SITES, licence: null, citation: null, extent: extentOf(all) };
-	}
-	const [d] = await db
+	datasetId?: string
+): Promise<OgcCollectionRow[]> {
+	const rows = await db
 		.select({
 			id: dataset.id,
 			title: dataset.title,
@@ -291,18 +263,42 @@ export async function collectionFor(
 		.from(dataset)
 		.leftJoin(site, eq(site.datasetId, dataset.id))
 		.where(
-			and(eq(dataset.id, ref.datasetId), visibleOnMaps(viewer), eq(dataset.status, 'published'))
+			and(
+				visibleOnMaps(viewer),
+				eq(dataset.status, 'published'),
+				datasetId === undefined ? undefined : eq(dataset.id, datasetId)
+			)
 		)
-		.groupBy(dataset.id);
-	if (!d) return null;
-	return {
-		ref,
+		.groupBy(dataset.id)
+		.orderBy(asc(dataset.title), asc(dataset.id));
+	return rows.map((d) => ({
+		ref: { kind: 'dataset', datasetId: d.id } as const,
 		title: d.title,
 		description: d.abstract,
 		licence: d.licence,
 		citation: d.citation,
 		extent: extentOf(d)
-	};
+	}));
+}
+
+/** The collections this viewer may see: all visible sites, then each visible published dataset. */
+export async function collectionsFor(db: Db, viewer: Viewer): Promise<OgcCollectionRow[]> {
+	const [all, datasets] = await Promise.all([
+		allSitesCollection(db, viewer),
+		datasetCollections(db, viewer)
+	]);
+	return [all, ...datasets];
+}
+
+/** One collection, or null when it does not exist or is not visible (the same answer). */
+export async function collectionFor(
+	db: Db,
+	viewer: Viewer,
+	ref: CollectionRef
+): Promise<OgcCollectionRow | null> {
+	if (ref.kind === 'sites') return allSitesCollection(db, viewer);
+	const [d] = await datasetCollections(db, viewer, ref.datasetId);
+	return d ?? null;
 }
 
 /** Whether a collection exists for this viewer, without computing its extent. */
