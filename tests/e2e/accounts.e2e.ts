@@ -82,16 +82,34 @@ describe('accounts and organisations, as users would do it', () => {
 		);
 		await screenshot(page, 'organisation-invited');
 
-		// The second person reads the invitation, signs up with that address and accepts.
+		// The second person opens the invitation signed out, creates an account from there,
+		// confirms the address and comes back to the invitation without looking for the mail again.
 		const invite = await waitForMail(second.email, 'Invitation to join Test Basin Heat Group');
 		const secondContext = await browser.newContext();
 		const page2 = await secondContext.newPage();
-		await signUp(page2, second);
-		await verifyFromMail(page2, second);
 		await page2.goto(firstLink(invite.text));
-		await expect(page2.getByText('You are invited to join as').textContent()).resolves.toContain(
-			'viewer'
+		await page2.getByRole('heading', { name: 'You have an invitation' }).waitFor();
+		await screenshot(page2, 'invitation-signed-out');
+		await page2.getByRole('link', { name: 'Create an account' }).click();
+		await page2.waitForURL(/\/sign-up\?next=/);
+		await page2.getByText('you come back to your invitation').waitFor();
+		await page2.getByLabel('Your name').fill(second.name);
+		await page2.getByLabel('E-mail address').fill(second.email);
+		await page2.getByLabel('Password', { exact: true }).fill(second.password);
+		await page2.getByLabel('Password again').fill(second.password);
+		await page2.getByRole('button', { name: 'Create account' }).click();
+		await page2.waitForURL(/\/verify-email\?sent=/);
+		await verifyFromMail(page2, second);
+		// The page that confirmed the address no longer asks to confirm it.
+		await expect(
+			page2.getByText('Confirm your e-mail address to upload data').count()
+		).resolves.toBe(0);
+		await page2.getByRole('link', { name: 'Back to your invitation' }).click();
+		await page2.waitForURL(/\/invitations\//);
+		await expect(page2.locator('main p').first().textContent()).resolves.toMatch(
+			/Ola Nordmark invites you to join\s+Test Basin Heat Group\s+as\s+viewer/
 		);
+		await screenshot(page2, 'invitation-signed-in');
 		await page2.getByRole('button', { name: 'Accept' }).click();
 		await page2.waitForURL(new RegExp(`/organisations/${slug}$`));
 		await expect(page2.getByText('You are viewer here.').count()).resolves.toBe(1);

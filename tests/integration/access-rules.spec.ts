@@ -156,5 +156,17 @@ describe('invitations', () => {
 		const html = await (await outsider.get(`/invitations/${inv.id}`)).text();
 		expect(html).toContain('This invitation was sent to another e-mail address.');
 		expect(html).not.toContain('Korvald Geological Survey');
+
+		// Signed out, the link explains itself and offers both ways in, each coming back to it,
+		// and still says nothing of what the invitation is for.
+		const anonymous = new Client();
+		const page = await anonymous.get(`/invitations/${inv.id}`);
+		expect(page.status).toBe(200);
+		const signedOut = await page.text();
+		const back = encodeURIComponent(`/invitations/${inv.id}`);
+		expect(signedOut).toContain(`/sign-in?next=${back}`);
+		expect(signedOut).toContain(`/sign-up?next=${back}`);
+		for (const secret of ['Korvald Geological Survey', 'curator', 'pending', 'expired'])
+			expect(signedOut).not.toContain(secret);
 	});
 });

@@ -11,6 +11,7 @@ import {
 	dataset,
 	importBatch,
 	member,
+	organisation,
 	site,
 	user,
 	type NewDataset
@@ -231,7 +232,7 @@ const ROUTES: Record<string, Row> = {
 						sites: count('count-sites'),
 						datasets: count('count-datasets'),
 						organisations: count('count-organisations')
-					}).toEqual(await expectedCounts(k));
+					}).toEqual(await expectedCounts(k).then(({ perOrganisation: _, ...counts }) => counts));
 				}
 			}
 		]
@@ -248,7 +249,25 @@ const ROUTES: Record<string, Row> = {
 	'/(app)/account': { none: "the viewer's own account and memberships only" },
 	'/(app)/admin': { none: 'accounts and organisations, no datasets: permissions-matrix.spec.ts' },
 	'/(app)/map': { none: 'tile settings only; the sites come from /api/v1/sites.geojson' },
-	'/(app)/organisations': { none: 'public directory of organisations, no datasets' },
+	'/(app)/organisations': {
+		checks: [
+			{
+				name: 'organisation cards count only datasets the viewer may open',
+				run: async (k, c) => {
+					if (c !== caseNames[0]) return expect(c).not.toBe(caseNames[0]);
+					const html = await textOnce(k, '/organisations');
+					const { perOrganisation } = await expectedCounts(k);
+					const orgs = await db.select({ id: organisation.id }).from(organisation);
+					for (const { id } of orgs) {
+						const n = perOrganisation[id] ?? 0;
+						expect(html, `organisation ${id}`).toContain(
+							`data-organisation="${id}" data-datasets="${n}"`
+						);
+					}
+				}
+			}
+		]
+	},
 	'/(app)/organisations/new': { none: 'form to create an organisation' },
 	'/(app)/organisations/[slug]/settings': {
 		none: 'members and invitations, no datasets: permissions-matrix.spec.ts'
@@ -585,10 +604,16 @@ async function expectedCounts(k: Kind) {
 	const sites = visibleIds.length
 		? await db.select({ id: site.id }).from(site).where(inArray(site.datasetId, visibleIds))
 		: [];
+	// Organisations are a public directory: the home page counts the whole list.
+	const organisations = await db.select({ id: organisation.id }).from(organisation);
+	const perOrganisation: Record<string, number> = {};
+	for (const d of visible)
+		perOrganisation[d.organisationId] = (perOrganisation[d.organisationId] ?? 0) + 1;
 	return {
 		sites: sites.length,
 		datasets: visible.length,
-		organisations: new Set(visible.map((d) => d.organisationId)).size
+		organisations: organisations.length,
+		perOrganisation
 	};
 }
 

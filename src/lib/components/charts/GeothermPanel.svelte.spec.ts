@@ -34,8 +34,15 @@ describe('GeothermPanel', () => {
 	it('shows the error for Moho depth 0 and recovers when fixed', async () => {
 		render(GeothermPanel, props);
 		await fireEvent.input(input(/Moho depth/), { target: { value: '0' } });
-		expect(screen.getByRole('alert').textContent).toContain('Moho depth (km) must be > 0; got 0');
+		expect(screen.getByRole('alert').textContent).toContain(
+			'Moho depth (km) must be greater than 0 (you entered 0).'
+		);
 		expect(screen.getByRole('alert').textContent).not.toContain('mohoDepthKm');
+		// The same sentence sits next to the field and describes it for screen readers.
+		const described = input(/Moho depth/).getAttribute('aria-describedby')!;
+		expect(document.getElementById(described)?.textContent).toBe(
+			'Must be greater than 0 (you entered 0).'
+		);
 		expect(screen.queryByRole('img')).toBeNull();
 		expect(input(/Moho depth/).getAttribute('aria-invalid')).toBe('true');
 		await fireEvent.input(input(/Moho depth/), { target: { value: '30' } });
@@ -47,13 +54,13 @@ describe('GeothermPanel', () => {
 		const view = render(GeothermPanel, props);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '-2' } });
 		expect(screen.getByRole('alert').textContent).toContain(
-			'Upper-crust conductivity (W/m/K) must be > 0; got -2'
+			'Upper-crust conductivity (W/m/K) must be greater than 0 (you entered \u22122).'
 		);
 		await fireEvent.input(input(/conductivity \(W\/m\/K\)/), { target: { value: '2.9' } });
 		expect(screen.queryByRole('alert')).toBeNull();
 		// A bad site value resets the form to it and is reported the same way.
 		await view.rerender({ ...props, site: { ...site, conductivityWmK: -1 } });
-		expect(screen.getByRole('alert').textContent).toContain('got -1');
+		expect(screen.getByRole('alert').textContent).toContain('(you entered \u22121)');
 		await view.rerender({ ...props, site: { ...site, conductivityWmK: 3 } });
 		expect(screen.queryByRole('alert')).toBeNull();
 		expect(input(/conductivity \(W\/m\/K\)/).value).toBe('3');
@@ -77,7 +84,28 @@ describe('GeothermPanel', () => {
 		expect(screen.getByTestId('isotherm-200').textContent).toContain('km');
 		await fireEvent.input(input(/Extra isotherm/), { target: { value: 'warm' } });
 		expect(screen.getByRole('alert').textContent).toContain(
-			'Extra isotherm (°C) must be a finite temperature; got NaN'
+			'Extra isotherm (°C): Enter a number, such as 2.5 or 2,5.'
+		);
+		expect(input(/Extra isotherm/).getAttribute('aria-invalid')).toBe('true');
+	});
+
+	it('flags a heat production that is not a number next to its field', async () => {
+		render(GeothermPanel, props);
+		await fireEvent.input(input(/heat production/), { target: { value: 'abc' } });
+		expect(input(/heat production/).getAttribute('aria-invalid')).toBe('true');
+		const described = input(/heat production/).getAttribute('aria-describedby')!;
+		expect(document.getElementById(described)?.textContent).toBe(
+			'Enter a number, such as 2.5 or 2,5.'
+		);
+		expect(screen.queryByRole('img')).toBeNull();
+	});
+
+	it('reads a decimal comma', async () => {
+		render(GeothermPanel, props);
+		await fireEvent.input(input(/Moho depth/), { target: { value: '37,5' } });
+		expect(screen.queryByRole('alert')).toBeNull();
+		expect(screen.getByTestId('geotherm-assumptions').textContent).toContain(
+			'Moho at 37.5 km (entered)'
 		);
 	});
 });

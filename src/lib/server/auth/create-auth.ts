@@ -93,10 +93,14 @@ export function createAuth(s: AuthSettings) {
 			sendOnSignUp: true,
 			autoSignInAfterVerification: true,
 			expiresIn: 24 * 60 * 60,
-			sendVerificationEmail: async ({ user, token }) => {
+			sendVerificationEmail: async ({ user, url, token }) => {
+				// The page to come back to (an invitation, say) rides along in the link; the
+				// confirmation page checks it again with the open-redirect rule before following it.
+				const next = new URL(url).searchParams.get('callbackURL');
+				const back = next?.startsWith('/') ? `&next=${encodeURIComponent(next)}` : '';
 				await s.send(
 					user.email,
-					mailTemplates.verifyEmail(user.name, link('/verify-email', token))
+					mailTemplates.verifyEmail(user.name, link('/verify-email', token) + back)
 				);
 			}
 		},

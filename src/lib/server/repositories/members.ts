@@ -40,7 +40,7 @@ export async function listPendingInvitations(db: Db, organisationId: string) {
 		.orderBy(asc(invitation.email));
 }
 
-/** One invitation with its organisation's name, for the invitation page. */
+/** One invitation with its organisation's and inviter's names, for the invitation page. */
 export async function findInvitation(db: Db, id: string) {
 	const [row] = await db
 		.select({
@@ -50,10 +50,12 @@ export async function findInvitation(db: Db, id: string) {
 			status: invitation.status,
 			expiresAt: invitation.expiresAt,
 			organisationName: organisation.name,
-			organisationSlug: organisation.slug
+			organisationSlug: organisation.slug,
+			inviterName: user.name
 		})
 		.from(invitation)
 		.innerJoin(organisation, eq(invitation.organizationId, organisation.id))
+		.leftJoin(user, eq(invitation.inviterId, user.id))
 		.where(eq(invitation.id, id));
 	return row ?? null;
 }
@@ -74,6 +76,7 @@ export async function invitationForViewer(db: Db, viewer: Viewer, id: string) {
 		forMe: true as const,
 		organisationName: found.organisationName,
 		organisationSlug: found.organisationSlug,
+		inviterName: found.inviterName,
 		role: found.role,
 		status: found.status,
 		expired: found.expiresAt < new Date()

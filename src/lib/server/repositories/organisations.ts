@@ -1,22 +1,32 @@
 import { error } from '@sveltejs/kit';
 import { and, asc, count, eq } from 'drizzle-orm';
-import type { Viewer } from '../access';
+import { visibleDatasets, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { member, organisation } from '../db/schema';
+import { dataset, member, organisation } from '../db/schema';
 
 /** The public directory of organisations (names and descriptions are public by design). */
-export async function listOrganisations(db: Db) {
-	return db
+export async function listOrganisations(db: Db, viewer: Viewer) {
+	// Each card says how many datasets the viewer can open there, counted by the one rule.
+	const visible = db
+		.select({ organisationId: dataset.organisationId, datasets: count().as('datasets') })
+		.from(dataset)
+		.where(visibleDatasets(viewer))
+		.groupBy(dataset.organisationId)
+		.as('visible');
+	const rows = await db
 		.select({
 			id: organisation.id,
 			name: organisation.name,
 			slug: organisation.slug,
 			country: organisation.country,
 			website: organisation.website,
-			description: organisation.description
+			description: organisation.description,
+			datasets: visible.datasets
 		})
 		.from(organisation)
+		.leftJoin(visible, eq(visible.organisationId, organisation.id))
 		.orderBy(asc(organisation.name));
+	return rows.map((r) => ({ ...r, datasets: Number(r.datasets ?? 0) }));
 }
 
 /** The organisation for a slug and the viewer's membership in it (null when not a member); 404 if unknown. */

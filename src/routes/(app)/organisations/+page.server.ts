@@ -2,6 +2,6 @@ import { getDb } from '$lib/server/db';
 import { listOrganisations } from '$lib/server/repositories/organisations';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async () => ({
-	organisations: await listOrganisations(getDb())
+export const load: PageServerLoad = async ({ locals }) => ({
+	organisations: await listOrganisations(getDb(), locals.viewer)
 });

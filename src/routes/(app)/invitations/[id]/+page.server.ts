@@ -7,10 +7,12 @@ import { invitationForViewer } from '$lib/server/repositories/members';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	requireUser(event);
+	// Signed out, the link still explains itself and offers both ways in, each coming back here;
+	// what the invitation is for is shown only to the invited address once signed in.
+	if (!event.locals.user) return { invitation: null, here: event.url.pathname };
 	const invitation = await invitationForViewer(getDb(), event.locals.viewer, event.params.id);
 	if (!invitation) error(404, 'No such invitation.');
-	return { invitation };
+	return { invitation, here: event.url.pathname };
 };
 
 export const actions: Actions = {
