@@ -238,6 +238,13 @@ const ROUTES: Record<string, Row> = {
 		]
 	},
 	'/(public)/help': { none: 'static help text' },
+	'/(public)/help/publish': { none: 'static help text' },
+	'/(public)/help/import': { none: 'static help text' },
+	'/(public)/help/fix-rows': { none: 'static help text' },
+	'/(public)/help/roles': { none: 'static help text built from permissions.ts, no data' },
+	'/(public)/help/visibility': { none: 'static help text' },
+	'/(public)/help/citing': { none: 'static help text' },
+	'/(public)/help/models': { none: 'static help text' },
 	'/(public)/api': { none: 'static API documentation' },
 	'/(auth)': { none: 'layout only' },
 	'/(auth)/sign-in': { none: 'accounts: tests/integration/account-abuse.spec.ts' },
