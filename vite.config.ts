@@ -24,6 +24,7 @@ export default defineConfig({
 				test: {
 					name: 'client',
 					environment: 'jsdom',
+					setupFiles: ['tests/setup/jsdom.ts'],
 					include: ['src/**/*.svelte.spec.ts']
 				}
 			},
