@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	type AnyPgColumn,
 	doublePrecision,
 	index,
 	integer,
@@ -16,6 +17,7 @@ import { HEAT_FLOW_METHODS } from '../../../sites/methods';
 import { QUALITY_CLASSES } from '../../../sites/quality';
 import { pointWgs84 } from '../point';
 import { dataset } from './datasets';
+import { siteValueRevision } from './site-values';
 
 /** How the heat flow was determined (the trade's own categories). */
 export const heatFlowMethod = pgEnum('heat_flow_method', HEAT_FLOW_METHODS);
@@ -62,6 +64,10 @@ export const site = pgTable(
 		remarks: text(),
 		/** The product's own quality class, computed from uncertainty, method and sample count. */
 		qualityClass: qualityClassEnum(),
+		/** The revision whose values the columns above hold; null while only the submitted values exist. */
+		currentRevisionId: uuid().references((): AnyPgColumn => siteValueRevision.id, {
+			onDelete: 'set null'
+		}),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},
