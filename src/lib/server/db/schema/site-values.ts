@@ -16,7 +16,8 @@ import { SITE_VALUE_SOURCES } from '../../../sites/revisions';
 import { user } from './auth';
 import { importBatch } from './files';
 import { siteComputation } from './site-data';
-import { heatFlowMethod, site } from './sites';
+import { heatFlowMethod } from './heat-flow-method';
+import { site } from './sites';
 
 /** Where a revision of a site's values came from (the one list is in src/lib/sites/revisions.ts). */
 export const siteValueSource = pgEnum('site_value_source', SITE_VALUE_SOURCES);
