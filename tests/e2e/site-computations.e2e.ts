@@ -110,7 +110,13 @@ describe('corrections, heat production and revisions on a site page', () => {
 		await hp.getByLabel('Density (kg/m³)').fill('2700');
 		await hp.getByRole('button', { name: 'Compute heat production' }).click();
 		await page.getByText('Heat production 1.88 µW/m³ stored.').waitFor();
-		await page.getByText('Model estimate.').first().waitFor();
+		// Shown as a model estimate with its assumptions and the caution.
+		await page
+			.getByText(
+				/Formation temperatures, palaeoclimate corrections and heat production are estimates/
+			)
+			.waitFor();
+		await page.getByText(/secular equilibrium of the decay series/).waitFor();
 		await screenshot(page, 'site-heat-production');
 
 		// Heat flow from the log, kept as a revision: the submitted value stays current.
