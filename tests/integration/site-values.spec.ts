@@ -5,6 +5,7 @@ import {
 	auditEvent,
 	conductivitySample,
 	dataset,
+	importBatch,
 	site,
 	siteComputation,
 	siteValueRevision,
@@ -196,6 +197,64 @@ describe('site values with history', () => {
 			: other.id;
 		const res = await post(contributor, 'choose', { revisionId: notOurs });
 		expect(res.status).toBe(404);
+	});
+});
+
+describe('provenance of the submitted values', () => {
+	it('names the import whose run stored the site, and who ran it', async () => {
+		const [d] = await db
+			.insert(dataset)
+			.values({
+				organisationId: ORG,
+				title: `Site values import ${run}`,
+				licence: 'CC-BY-4.0',
+				status: 'draft',
+				visibility: 'private'
+			} as NewDataset)
+			.returning({ id: dataset.id });
+		const [owner] = await sql<{ id: string }[]>`
+			SELECT id FROM "user" WHERE email = 'contributor@korvald-survey.example'`;
+		const started = new Date(Date.now() - 60_000);
+		const [batch] = await db
+			.insert(importBatch)
+			.values({
+				datasetId: d.id,
+				fileName: `field-${run}.csv`,
+				fileSha256: 'a'.repeat(64),
+				totalRows: 1,
+				doneRows: 1,
+				status: 'done',
+				createdBy: owner.id,
+				createdAt: started,
+				finishedAt: new Date(Date.now() + 60_000)
+			})
+			.returning({ id: importBatch.id });
+		const [s] = await db
+			.insert(site)
+			.values({
+				datasetId: d.id,
+				code: `SV-IMP-${run}`,
+				location: { lon: 101.4, lat: -58.6 },
+				heatFlowMWm2: 55,
+				createdAt: new Date(started.getTime() + 1000)
+			})
+			.returning({ id: site.id });
+		const res = await contributor.post(`/sites/${s.id}?/correct`, {
+			heatFlowMWm2: '56',
+			method: 'other',
+			reason: 'Rounded differently in the report'
+		});
+		expect(res.status).toBe(200);
+		const [submitted] = await db
+			.select()
+			.from(siteValueRevision)
+			.where(and(eq(siteValueRevision.siteId, s.id), eq(siteValueRevision.source, 'submitted')));
+		expect(submitted.importBatchId).toBe(batch.id);
+		expect(submitted.createdBy).toBe(owner.id);
+		expect(submitted.heatFlowMWm2).toBe(55);
+		const page = await (await contributor.get(`/sites/${s.id}`)).text();
+		expect(page).toContain(`Imported from field-${run}.csv by`);
+		expect(page).toContain('Reason: Rounded differently in the report');
 	});
 });
 
