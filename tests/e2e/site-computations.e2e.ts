@@ -138,6 +138,18 @@ describe('corrections, heat production and revisions on a site page', () => {
 		expect(await rows.nth(1).textContent()).toContain('Computed by');
 		await screenshot(page, 'site-revisions-chosen');
 
+		// Palaeoclimate: a 2 °C warming 10 000 years ago, applied to the log; the corrected log is
+		// stored beside it and plotted with the measured one.
+		const palaeo = page.getByTestId('palaeoclimate-form');
+		await palaeo.getByLabel('Step 1 (°C)').fill('2');
+		await palaeo.getByLabel('Years ago').first().fill('10000');
+		await palaeo.getByRole('button', { name: 'Apply correction' }).click();
+		await page
+			.getByText(/Stored the corrected log “E2E-log\.csv \(palaeoclimate-corrected\)”/)
+			.waitFor();
+		await page.getByTestId('palaeo-corrected').waitFor();
+		await screenshot(page, 'site-palaeoclimate');
+
 		expect(errors.filter((e) => !e.startsWith('HTTP 400'))).toEqual([]);
 		await context.close();
 	});
