@@ -370,9 +370,18 @@ const ROUTES: Record<string, Row> = {
 				}
 			},
 			{
-				name: 'site actions (?/log, ?/conductivity, ?/compute without input)',
+				name: 'site actions (data, computations, revisions) without input',
 				run: async (k, c) => {
-					for (const action of ['log', 'conductivity', 'compute']) {
+					for (const action of [
+						'log',
+						'conductivity',
+						'compute',
+						'correct',
+						'choose',
+						'bht',
+						'palaeoclimate',
+						'heatProduction'
+					]) {
 						const res = await clients[k].post(`/sites/${ids[c].site}?/${action}`, {});
 						expect(writeStatus(k, c, changes(k, c), 400)).toContain(res.status);
 					}

@@ -47,3 +47,25 @@ describe('bullardChartData', () => {
 		);
 	});
 });
+
+describe('bullardChartData residuals', () => {
+	it('are zero on a log exactly linear in resistance and measured − fitted otherwise', () => {
+		const exact = bullardChartData(linearLog, 'resistance');
+		for (const r of exact.residualsC) expect(Math.abs(r)).toBeLessThan(1e-9);
+		// Add +0.2 / −0.2 °C to the 2nd and 3rd points: residuals sum to zero (least squares with an
+		// intercept) and the perturbed points keep their sign (common practice, no source).
+		const noisy = {
+			...linearLog,
+			temperatureC: linearLog.temperatureC.map((t, i) => t + (i === 1 ? 0.2 : i === 2 ? -0.2 : 0))
+		};
+		const d = bullardChartData(noisy, 'resistance');
+		expect(d.residualsC).toHaveLength(10);
+		expect(Math.abs(d.residualsC.reduce((a, b) => a + b, 0))).toBeLessThan(1e-9);
+		expect(d.residualsC[1]).toBeGreaterThan(0.1);
+		expect(d.residualsC[2]).toBeLessThan(-0.1);
+		// Each residual is the point minus the line through its ends at that position.
+		const slope = (d.line.toC - d.line.fromC) / (d.line.toPosition - d.line.fromPosition);
+		const fitted4 = d.line.fromC + slope * (d.positions[4] - d.line.fromPosition);
+		expect(d.residualsC[4]).toBeCloseTo(noisy.temperatureC[4] - fitted4, 12);
+	});
+});

@@ -29,12 +29,28 @@ export interface BullardChartData {
 	depthM: number[];
 	/** Fitted straight line at the first and last position. */
 	line: { fromPosition: number; fromC: number; toPosition: number; toC: number };
+	/** Measured minus fitted temperature (°C) at each used point, same order as `positions`. */
+	residualsC: number[];
 	/** Bullard estimate in resistance mode, interval (k̄ Γ) estimate in depth mode. */
 	estimate: HeatFlowEstimate;
 }
 
 /** Points and fitted line for one mode; throws InputError like the core. */
 export function bullardChartData(input: BoreholeLogInput, mode: BullardMode): BullardChartData {
+	const chart = chartWithoutResiduals(input, mode);
+	const { fromPosition, fromC, toPosition, toC } = chart.line;
+	// The line is straight, so its value at any position follows from its two ends.
+	const slope = toPosition === fromPosition ? 0 : (toC - fromC) / (toPosition - fromPosition);
+	const residualsC = chart.positions.map(
+		(p, i) => chart.temperatureC[i] - (fromC + slope * (p - fromPosition))
+	);
+	return { ...chart, residualsC };
+}
+
+function chartWithoutResiduals(
+	input: BoreholeLogInput,
+	mode: BullardMode
+): Omit<BullardChartData, 'residualsC'> {
 	const plot = bullardPlot(input); // validates and windows the log
 	if (mode === 'resistance') {
 		const estimate = heatFlowFromLog({ ...input, method: 'bullard' });

@@ -15,3 +15,7 @@ export type { LinearScale } from './scale';
 export { formatDepthRangeKm, formatTriple } from './format';
 export { bullardChartData } from './bullard';
 export type { BoreholeLogInput, BullardMode, BullardChartData } from './bullard';
+export { hornerChartData } from './horner';
+export type { HornerChartData, HornerReadingInput } from './horner';
+export { palaeoclimateChartData } from './palaeoclimate';
+export type { PalaeoclimateChartData } from './palaeoclimate';

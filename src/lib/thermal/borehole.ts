@@ -40,6 +40,7 @@ export interface HeatFlowEstimate {
 	gradientKPerKm: number;
 	sigmaGradientKPerKm: number;
 	meanConductivityWmK: number; // thickness-weighted harmonic mean over the range
+	sigmaMeanConductivityWmK: number; // k̄ σR/R: what the samples' σ give the mean (0 without σ)
 	interceptC: number; // fitted temperature at the top of the range (or at R = 0)
 	samples: number; // log points used in the fit
 }
@@ -139,6 +140,7 @@ export function heatFlowFromLog(input: HeatFlowFromLogInput): HeatFlowEstimate {
 		gradientKPerKm: gradient.gradientKPerKm,
 		sigmaGradientKPerKm: gradient.sigmaGradientKPerKm,
 		meanConductivityWmK: meanK,
+		sigmaMeanConductivityWmK: meanK * relSigmaK,
 		interceptC,
 		samples: w.last - w.first + 1
 	};

@@ -32,6 +32,12 @@ describe('BullardPlot', () => {
 		expect(screen.getByRole('img').querySelector('desc')?.textContent).toContain(
 			'Bullard plot of 10 log points'
 		);
+		// Residuals of an exact line all sit on the zero line of the residual strip, one per point.
+		const residuals = screen.getAllByTestId('bullard-residual');
+		expect(residuals).toHaveLength(10);
+		const zero = num(residuals[0], 'cx');
+		for (const p of residuals) expect(num(p, 'cx')).toBeCloseTo(zero, 0);
+		expect(residuals.map((p) => num(p, 'cy'))).toEqual(points.map((p) => num(p, 'cy')));
 	});
 
 	it('switches to temperature against depth with the fitted gradient line', async () => {

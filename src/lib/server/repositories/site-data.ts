@@ -1,9 +1,8 @@
 import { error } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
-import { qualityClass } from '$lib/sites/quality';
 import type { Viewer } from '../access';
 import type { Db } from '../db/client';
-import { conductivitySample, heatFlowComputation, site, temperatureLog } from '../db/schema';
+import { conductivitySample, temperatureLog } from '../db/schema';
 import { siteForViewer } from './site-detail';
 
 declare const editable: unique symbol;
@@ -48,6 +47,7 @@ export async function replaceConductivitySamples(
 	});
 }
 
+/** A heat flow computed from a log (stored by recordHeatFlowComputation in site-values.ts). */
 export interface ComputedHeatFlow {
 	logId: string;
 	method: 'interval' | 'bullard';
@@ -60,45 +60,4 @@ export interface ComputedHeatFlow {
 	meanConductivityWmK: number;
 	samples: number;
 	engineVersion: string;
-}
-
-/**
- * Record a heat flow computed from a log; with `saveToSite`, also make it the site's value and
- * recompute its quality class (src/lib/sites/quality.ts), in the same transaction.
- */
-export async function recordHeatFlowComputation(
-	db: Db,
-	viewer: Viewer,
-	target: EditableSite,
-	c: ComputedHeatFlow,
-	saveToSite: { conductivitySamples: number } | null
-) {
-	await db.transaction(async (tx) => {
-		await tx
-			.insert(heatFlowComputation)
-			.values({ ...c, siteId: target.site.id, createdBy: viewer.userId });
-		if (!saveToSite) return;
-		const siteMethod = c.method === 'bullard' ? 'bullard' : 'borehole_interval';
-		await tx
-			.update(site)
-			.set({
-				heatFlowMWm2: c.heatFlowMWm2,
-				heatFlowSigmaMWm2: c.sigmaMWm2,
-				gradientKPerKm: c.gradientKPerKm,
-				gradientSigmaKPerKm: c.sigmaGradientKPerKm,
-				conductivityWmK: c.meanConductivityWmK,
-				conductivitySamples: saveToSite.conductivitySamples,
-				topDepthM: c.fromM,
-				bottomDepthM: c.toM,
-				method: siteMethod,
-				qualityClass: qualityClass({
-					heatFlowMWm2: c.heatFlowMWm2,
-					heatFlowSigmaMWm2: c.sigmaMWm2,
-					method: siteMethod,
-					conductivitySamples: saveToSite.conductivitySamples
-				}),
-				updatedAt: new Date()
-			})
-			.where(eq(site.id, target.site.id));
-	});
 }

@@ -5,9 +5,9 @@ import {
 	attachment,
 	conductivitySample,
 	dataset,
-	heatFlowComputation,
 	organisation,
 	site,
+	siteComputation,
 	temperatureLog
 } from '../db/schema';
 
@@ -50,12 +50,12 @@ export async function siteMeasurements(db: Db, viewer: Viewer, siteId: string) {
 			.where(visibleSite)
 			.orderBy(asc(conductivitySample.topM)),
 		db
-			.select({ computation: heatFlowComputation })
-			.from(heatFlowComputation)
-			.innerJoin(site, eq(heatFlowComputation.siteId, site.id))
+			.select({ computation: siteComputation })
+			.from(siteComputation)
+			.innerJoin(site, eq(siteComputation.siteId, site.id))
 			.innerJoin(dataset, eq(site.datasetId, dataset.id))
 			.where(visibleSite)
-			.orderBy(desc(heatFlowComputation.createdAt)),
+			.orderBy(desc(siteComputation.createdAt)),
 		db
 			.select({
 				id: attachment.id,

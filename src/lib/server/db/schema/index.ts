@@ -4,5 +4,6 @@ export * from './sites';
 export * from './sign-in-failures';
 export * from './auth';
 export * from './site-data';
+export * from './site-values';
 export * from './files';
 export * from './audit';

@@ -1,13 +1,18 @@
+import { sql } from 'drizzle-orm';
 import {
+	check,
 	doublePrecision,
 	index,
 	integer,
+	jsonb,
 	pgEnum,
 	pgTable,
 	text,
 	timestamp,
 	uuid
 } from 'drizzle-orm/pg-core';
+// Relative, not $lib: drizzle-kit and the seed load the schema outside SvelteKit.
+import { SITE_COMPUTATION_KINDS } from '../../../sites/computations';
 import { user } from './auth';
 import { site } from './sites';
 
@@ -48,28 +53,45 @@ export const conductivitySample = pgTable(
 
 export const logMethod = pgEnum('log_heat_flow_method', ['interval', 'bullard']);
 
-/** Heat flow computed from a log by the thermal core, with what it was computed from. */
-export const heatFlowComputation = pgTable(
-	'heat_flow_computation',
+/** What a site computation computed (the one list is in src/lib/sites/computations.ts). */
+export const siteComputationKind = pgEnum('site_computation_kind', SITE_COMPUTATION_KINDS);
+
+/**
+ * A computation on a site's data by the thermal core, with what it was computed from: heat flow
+ * from a log (typed columns, checked present for that kind), and the Horner bottom-hole
+ * temperature, palaeoclimate correction and heat production (their inputs and result as JSON,
+ * shaped by src/lib/sites/computations.ts).
+ */
+export const siteComputation = pgTable(
+	'site_computation',
 	{
 		id: uuid().primaryKey().defaultRandom(),
 		siteId: uuid()
 			.notNull()
 			.references(() => site.id, { onDelete: 'cascade' }),
+		kind: siteComputationKind().notNull().default('heat_flow'),
 		logId: uuid().references(() => temperatureLog.id, { onDelete: 'set null' }),
-		method: logMethod().notNull(),
-		fromM: doublePrecision().notNull(),
-		toM: doublePrecision().notNull(),
-		heatFlowMWm2: doublePrecision('heat_flow_mw_m2').notNull(),
-		sigmaMWm2: doublePrecision('sigma_mw_m2').notNull(),
-		gradientKPerKm: doublePrecision().notNull(),
-		sigmaGradientKPerKm: doublePrecision().notNull(),
-		meanConductivityWmK: doublePrecision('mean_conductivity_w_mk').notNull(),
-		samples: integer().notNull(),
+		method: logMethod(),
+		fromM: doublePrecision(),
+		toM: doublePrecision(),
+		heatFlowMWm2: doublePrecision('heat_flow_mw_m2'),
+		sigmaMWm2: doublePrecision('sigma_mw_m2'),
+		gradientKPerKm: doublePrecision(),
+		sigmaGradientKPerKm: doublePrecision(),
+		meanConductivityWmK: doublePrecision('mean_conductivity_w_mk'),
+		samples: integer(),
+		inputs: jsonb().$type<Record<string, unknown>>().notNull().default({}),
+		result: jsonb().$type<Record<string, unknown>>().notNull().default({}),
 		/** Version of Thermalith's thermal core that computed it. */
 		engineVersion: text().notNull(),
 		createdBy: text().references(() => user.id, { onDelete: 'set null' }),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},
-	(t) => [index('heat_flow_computation_site_idx').on(t.siteId)]
+	(t) => [
+		index('site_computation_site_idx').on(t.siteId),
+		check(
+			'site_computation_heat_flow_columns',
+			sql`${t.kind} <> 'heat_flow' OR (${t.method} IS NOT NULL AND ${t.fromM} IS NOT NULL AND ${t.toM} IS NOT NULL AND ${t.heatFlowMWm2} IS NOT NULL AND ${t.sigmaMWm2} IS NOT NULL AND ${t.gradientKPerKm} IS NOT NULL AND ${t.sigmaGradientKPerKm} IS NOT NULL AND ${t.meanConductivityWmK} IS NOT NULL AND ${t.samples} IS NOT NULL)`
+		)
+	]
 );

@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	type AnyPgColumn,
 	doublePrecision,
 	index,
 	integer,
@@ -12,13 +13,14 @@ import {
 	uuid
 } from 'drizzle-orm/pg-core';
 // Relative, not $lib: drizzle-kit and the seed load the schema outside SvelteKit.
-import { HEAT_FLOW_METHODS } from '../../../sites/methods';
 import { QUALITY_CLASSES } from '../../../sites/quality';
 import { pointWgs84 } from '../point';
 import { dataset } from './datasets';
+import { heatFlowMethod } from './heat-flow-method';
+import { siteValueRevision } from './site-values';
 
-/** How the heat flow was determined (the trade's own categories). */
-export const heatFlowMethod = pgEnum('heat_flow_method', HEAT_FLOW_METHODS);
+// In its own module so site-values.ts can use it without an import cycle through this file.
+export { heatFlowMethod };
 
 /** The product's own quality classes (defined in sites/quality.ts, the one list). */
 export const qualityClassEnum = pgEnum('quality_class', QUALITY_CLASSES);
@@ -62,6 +64,10 @@ export const site = pgTable(
 		remarks: text(),
 		/** The product's own quality class, computed from uncertainty, method and sample count. */
 		qualityClass: qualityClassEnum(),
+		/** The revision whose values the columns above hold; null while only the submitted values exist. */
+		currentRevisionId: uuid().references((): AnyPgColumn => siteValueRevision.id, {
+			onDelete: 'set null'
+		}),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},

@@ -8,16 +8,37 @@ import {
 	temperatureLogFromLas,
 	ImportFormatError
 } from '$lib/imports';
-import { heatFlowFromLog, InputError } from '$lib/thermal';
+import { palaeoclimateChartData } from '$lib/chart-data';
+import { parseForm } from '$lib/schemas/form';
+import {
+	bhtSchema,
+	chooseRevisionSchema,
+	correctionSchema,
+	heatProductionSchema,
+	palaeoclimateSchema
+} from '$lib/schemas/site-values';
+import { revisionRows } from '$lib/sites/revisions';
+import {
+	heatFlowFromLog,
+	heatProductionUWm3,
+	hornerFormationTemperature,
+	InputError
+} from '$lib/thermal';
 import { getDb } from '$lib/server/db';
 import { requireUser } from '$lib/server/guards';
 import {
 	addTemperatureLog,
 	editableSite as editable,
-	recordHeatFlowComputation,
 	replaceConductivitySamples
 } from '$lib/server/repositories/site-data';
 import { siteForViewer, siteMeasurements } from '$lib/server/repositories/site-detail';
+import {
+	addCorrection,
+	chooseCurrentRevision,
+	recordHeatFlowComputation,
+	recordSiteComputation,
+	siteRevisions
+} from '$lib/server/repositories/site-values';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const MAX_LOG_BYTES = 5 * 1024 * 1024;
@@ -25,7 +46,12 @@ const MAX_LOG_BYTES = 5 * 1024 * 1024;
 export const load: PageServerLoad = async ({ params, locals }) => {
 	const db = getDb();
 	const found = await siteForViewer(db, locals.viewer, params.id);
-	const m = await siteMeasurements(db, locals.viewer, params.id);
+	const [m, revisions] = await Promise.all([
+		siteMeasurements(db, locals.viewer, params.id),
+		siteRevisions(db, locals.viewer, params.id)
+	]);
+	const heatFlowComputations = m.computations.filter((c) => c.kind === 'heat_flow');
+	const otherComputations = m.computations.filter((c) => c.kind !== 'heat_flow');
 	return {
 		site: { ...found.site, lon: found.lon, lat: found.lat },
 		dataset: {
@@ -49,7 +75,27 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 			conductivityWmK: s.conductivityWmK,
 			sigmaWmK: s.sigmaWmK ?? undefined
 		})),
-		computations: m.computations,
+		computations: heatFlowComputations.map((c) => ({
+			id: c.id,
+			method: c.method ?? 'interval',
+			fromM: c.fromM ?? 0,
+			toM: c.toM ?? 0,
+			heatFlowMWm2: c.heatFlowMWm2 ?? 0,
+			sigmaMWm2: c.sigmaMWm2 ?? 0,
+			samples: c.samples ?? 0,
+			engineVersion: c.engineVersion,
+			createdAt: c.createdAt
+		})),
+		/** Horner, palaeoclimate and heat-production results with their inputs, newest first. */
+		siteComputations: otherComputations.map((c) => ({
+			id: c.id,
+			kind: c.kind,
+			inputs: c.inputs,
+			result: c.result,
+			engineVersion: c.engineVersion,
+			createdAt: c.createdAt
+		})),
+		revisions: revisionRows(found.site, revisions, found.site.currentRevisionId),
 		files: m.files
 	};
 };
@@ -174,7 +220,7 @@ export const actions: Actions = {
 			if (err instanceof InputError) return fail(400, { form: 'compute', message: err.message });
 			throw err;
 		}
-		await recordHeatFlowComputation(
+		const stored = await recordHeatFlowComputation(
 			db,
 			event.locals.viewer,
 			target,
@@ -191,8 +237,127 @@ export const actions: Actions = {
 				samples: estimate.samples,
 				engineVersion: `thermalith ${version}`
 			},
-			save ? { conductivitySamples: m.samples.length } : null
+			save
+				? {
+						conductivitySamples: m.samples.length,
+						sigmaMeanConductivityWmK: estimate.sigmaMeanConductivityWmK
+					}
+				: null
 		);
-		return { form: 'compute', estimate, saved: Boolean(save) };
+		return {
+			form: 'compute',
+			estimate,
+			saved: Boolean(save),
+			revisionId: stored.revisionId,
+			// Samples without σ add nothing to the ± (docs/science.md#borehole-heat-flow): say so.
+			samplesWithoutSigma: m.samples.filter((s) => s.sigmaWmK === null).length
+		};
+	},
+	correct: async (event) => {
+		const target = await editableSite(event);
+		const parsed = parseForm(correctionSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { form: 'correct', ...parsed });
+		const { values, reason } = parsed.data;
+		const revisionId = await addCorrection(getDb(), event.locals.viewer, target, values, reason);
+		return { form: 'correct', revisionId };
+	},
+	choose: async (event) => {
+		const target = await editableSite(event);
+		const parsed = parseForm(chooseRevisionSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { form: 'choose', message: parsed.errors.revisionId });
+		const done = await chooseCurrentRevision(
+			getDb(),
+			event.locals.viewer,
+			target,
+			parsed.data.revisionId
+		);
+		if (!done)
+			return fail(404, { form: 'choose', message: 'That revision does not belong to this site.' });
+		return { form: 'choose', chosen: parsed.data.revisionId };
+	},
+	bht: async (event) => {
+		const target = await editableSite(event);
+		const parsed = parseForm(bhtSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { form: 'bht', ...parsed });
+		const inputs = parsed.data;
+		let estimate;
+		try {
+			estimate = hornerFormationTemperature(inputs.readings, inputs.circulationTimeH);
+		} catch (err) {
+			if (err instanceof InputError)
+				return fail(400, { form: 'bht', errors: { readings: err.message }, values: {} });
+			throw err;
+		}
+		await recordSiteComputation(
+			getDb(),
+			event.locals.viewer,
+			target,
+			'horner_bht',
+			{ ...inputs },
+			{ ...estimate },
+			`thermalith ${version}`
+		);
+		return { form: 'bht', horner: estimate };
+	},
+	palaeoclimate: async (event) => {
+		const target = await editableSite(event);
+		const parsed = parseForm(palaeoclimateSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { form: 'palaeoclimate', ...parsed });
+		const { logId, diffusivityM2s, steps } = parsed.data;
+		const m = await siteMeasurements(getDb(), event.locals.viewer, event.params.id);
+		const log = m.logs.find((l) => l.id === logId);
+		if (!log)
+			return fail(404, {
+				form: 'palaeoclimate',
+				errors: { logId: 'That log does not belong to this site.' },
+				values: {}
+			});
+		let chart;
+		try {
+			chart = palaeoclimateChartData(log.depthM, log.temperatureC, steps, diffusivityM2s);
+		} catch (err) {
+			if (err instanceof InputError)
+				return fail(400, { form: 'palaeoclimate', errors: { steps: err.message }, values: {} });
+			throw err;
+		}
+		const correctedName = `${log.name} (palaeoclimate-corrected)`;
+		await recordSiteComputation(
+			getDb(),
+			event.locals.viewer,
+			target,
+			'palaeoclimate',
+			{ logId, logName: log.name, diffusivityM2s, steps },
+			{
+				points: chart.depthM.length,
+				gradientBeforeKPerKm: chart.gradientBeforeKPerKm,
+				gradientAfterKPerKm: chart.gradientAfterKPerKm,
+				maxPerturbationC: chart.maxPerturbationC
+			},
+			`thermalith ${version}`,
+			{ name: correctedName, depthM: chart.depthM, temperatureC: chart.correctedC, logId }
+		);
+		return { form: 'palaeoclimate', correctedName, chart };
+	},
+	heatProduction: async (event) => {
+		const target = await editableSite(event);
+		const parsed = parseForm(heatProductionSchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { form: 'heatProduction', ...parsed });
+		const inputs = {
+			uraniumPpm: parsed.data.uraniumPpm as number,
+			thoriumPpm: parsed.data.thoriumPpm as number,
+			potassiumPct: parsed.data.potassiumPct as number,
+			densityKgM3: parsed.data.densityKgM3 as number
+		};
+		const a = heatProductionUWm3(inputs);
+		await recordSiteComputation(
+			getDb(),
+			event.locals.viewer,
+			target,
+			'heat_production',
+			inputs,
+			{ heatProductionUWm3: a },
+			`thermalith ${version}`
+		);
+		return { form: 'heatProduction', heatProductionUWm3: a };
 	}
 };
