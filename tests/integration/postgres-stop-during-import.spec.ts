@@ -57,12 +57,18 @@ async function sitesIn(id: string): Promise<number> {
 	}
 }
 
+interface BatchState {
+	status: string;
+	error?: string | null;
+	doneRows?: number;
+}
+
 /** The batch as its owner sees it, or the HTTP status when the app cannot say. */
-async function batchState(batchId: string) {
+async function batchState(batchId: string): Promise<BatchState> {
 	const res = await contributor.get(`/api/v1/imports/${batchId}`).catch(() => null);
 	if (!res) return { status: 'unreachable' };
 	if (!res.ok) return { status: `http ${res.status}` };
-	return (await res.json()) as { status: string; error?: string; doneRows: number };
+	return (await res.json()) as BatchState;
 }
 
 beforeAll(async () => {
