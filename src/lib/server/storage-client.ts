@@ -18,7 +18,7 @@ export interface S3Settings {
 export const STORE_TIMEOUTS = { connectionTimeout: 5_000, requestTimeout: 30_000, maxAttempts: 2 };
 
 /** An S3 client for any S3-compatible store (s3rver locally, MinIO or a cloud service elsewhere). */
-export function createS3Client(s: S3Settings): S3Client {
+export function createS3Client(s: S3Settings, timeouts = STORE_TIMEOUTS): S3Client {
 	return new S3Client({
 		endpoint: s.endpoint,
 		region: s.region,
@@ -28,10 +28,10 @@ export function createS3Client(s: S3Settings): S3Client {
 		// framing stored as the object's bytes; only send checksums a store asks for.
 		requestChecksumCalculation: 'WHEN_REQUIRED',
 		responseChecksumValidation: 'WHEN_REQUIRED',
-		maxAttempts: STORE_TIMEOUTS.maxAttempts,
+		maxAttempts: timeouts.maxAttempts,
 		requestHandler: {
-			connectionTimeout: STORE_TIMEOUTS.connectionTimeout,
-			requestTimeout: STORE_TIMEOUTS.requestTimeout,
+			connectionTimeout: timeouts.connectionTimeout,
+			requestTimeout: timeouts.requestTimeout,
 			throwOnRequestTimeout: true
 		}
 	});
