@@ -7,20 +7,35 @@ import {
 } from './database-down';
 
 describe('isDatabaseUnavailable', () => {
-	it('recognises driver, network and server shutdown codes, also when wrapped', () => {
-		expect(isDatabaseUnavailable(Object.assign(new Error('x'), { code: 'ECONNREFUSED' }))).toBe(
-			true
-		);
+	it('recognises the driver and server codes, also when wrapped', () => {
 		expect(isDatabaseUnavailable({ code: 'CONNECTION_CLOSED' })).toBe(true);
 		expect(isDatabaseUnavailable({ code: '57P01' })).toBe(true);
 		const wrapped = new Error('Failed query', { cause: { code: 'CONNECT_TIMEOUT' } });
 		expect(isDatabaseUnavailable(new Error('outer', { cause: wrapped }))).toBe(true);
-		expect(isDatabaseUnavailable(new AggregateError([{ code: 'ECONNREFUSED' }]))).toBe(true);
+	});
+
+	it('counts a network failure only under a failed database query', () => {
+		const refused = Object.assign(new Error('connect ECONNREFUSED'), { code: 'ECONNREFUSED' });
+		const failedQuery = Object.assign(new Error('Failed query'), {
+			query: 'select 1',
+			cause: refused
+		});
+		expect(isDatabaseUnavailable(new Error('auth', { cause: failedQuery }))).toBe(true);
+		expect(
+			isDatabaseUnavailable(
+				Object.assign(new Error('Failed query'), {
+					query: 'select 1',
+					cause: new AggregateError([{ code: 'ECONNREFUSED' }])
+				})
+			)
+		).toBe(true);
+		// The object store or the mail server refusing is not the database.
+		expect(isDatabaseUnavailable(refused)).toBe(false);
 	});
 
 	it('leaves other failures alone (they stay 500s or 4xx)', () => {
 		expect(isDatabaseUnavailable(new Error('boom'))).toBe(false);
-		expect(isDatabaseUnavailable({ code: '23505' })).toBe(false);
+		expect(isDatabaseUnavailable({ code: '23505', query: 'insert' })).toBe(false);
 		expect(isDatabaseUnavailable(null)).toBe(false);
 		expect(isDatabaseUnavailable('ECONNREFUSED')).toBe(false);
 	});

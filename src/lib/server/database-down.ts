@@ -6,36 +6,51 @@
  * back (the driver reconnects per query).
  */
 
-/** Codes of the driver (postgres.js), the network and the server that mean "no database now". */
-const UNAVAILABLE_CODES = new Set([
+/** Codes of the driver (postgres.js) and the server that mean "no database now". */
+const DATABASE_CODES = new Set([
 	'CONNECTION_CLOSED',
 	'CONNECTION_DESTROYED',
 	'CONNECTION_ENDED',
 	'CONNECT_TIMEOUT',
-	'ECONNREFUSED',
-	'ECONNRESET',
-	'EPIPE',
-	'ETIMEDOUT',
-	'EHOSTUNREACH',
-	'ENOTFOUND',
 	'57P01', // admin_shutdown
 	'57P02', // crash_shutdown
 	'57P03' // cannot_connect_now (starting up, shutting down, in recovery)
 ]);
 
+/** Network codes: they mean "no database" only under a failed query (other services have their own). */
+const NETWORK_CODES = new Set([
+	'ECONNREFUSED',
+	'ECONNRESET',
+	'EPIPE',
+	'ETIMEDOUT',
+	'EHOSTUNREACH',
+	'ENOTFOUND'
+]);
+
 export const DATABASE_DOWN_MESSAGE =
 	'The database is not reachable right now. Nothing was changed; please try again in a minute.';
 
-/** True when the error, or one it wraps (Drizzle and better-auth wrap driver errors), is one of those. */
-export function isDatabaseUnavailable(err: unknown): boolean {
+/**
+ * True when the error, or one it wraps (Drizzle wraps driver errors in one that names the query,
+ * better-auth wraps those again), is one of the driver's or the server's codes, or a network
+ * failure under a database query.
+ */
+export function isDatabaseUnavailable(err: unknown, underQuery = false): boolean {
 	let current: unknown = err;
 	for (let depth = 0; depth < 6 && current && typeof current === 'object'; depth++) {
-		const { code, errno } = current as { code?: unknown; errno?: unknown };
-		if (typeof code === 'string' && UNAVAILABLE_CODES.has(code)) return true;
-		if (typeof errno === 'string' && UNAVAILABLE_CODES.has(errno)) return true;
-		const { errors } = current as { errors?: unknown };
+		const { code, query, errors } = current as {
+			code?: unknown;
+			query?: unknown;
+			errors?: unknown;
+		};
+		underQuery ||= typeof query === 'string';
+		if (typeof code === 'string') {
+			if (DATABASE_CODES.has(code)) return true;
+			if (underQuery && NETWORK_CODES.has(code)) return true;
+		}
 		// Node's AggregateError for a host that resolves to several addresses, all refusing.
-		if (Array.isArray(errors) && errors.some(isDatabaseUnavailable)) return true;
+		if (Array.isArray(errors) && errors.some((e) => isDatabaseUnavailable(e, underQuery)))
+			return true;
 		current = (current as { cause?: unknown }).cause;
 	}
 	return false;
