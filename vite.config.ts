@@ -1,7 +1,11 @@
 import { sveltekit } from '@sveltejs/kit/vite';
 import tailwindcss from '@tailwindcss/vite';
 import { svelteTesting } from '@testing-library/svelte/vite';
-import { defineConfig } from 'vitest/config';
+import { configDefaults, defineConfig } from 'vitest/config';
+import { SLOW_TESTS } from './tests/slow-tests.js';
+
+// Set by scripts/test.js: 'fast' for `npm test`, 'slow' for `npm run test:slow`, unset for both.
+const tier = process.env.THERMALITH_TEST_TIER;
 
 export default defineConfig({
 	plugins: [tailwindcss(), sveltekit()],
@@ -33,7 +37,8 @@ export default defineConfig({
 				test: {
 					name: 'integration',
 					environment: 'node',
-					include: ['tests/integration/**/*.spec.ts'],
+					include: tier === 'slow' ? SLOW_TESTS : ['tests/integration/**/*.spec.ts'],
+					exclude: [...configDefaults.exclude, ...(tier === 'fast' ? SLOW_TESTS : [])],
 					// One shared database: files run one after another so fixtures never race.
 					fileParallelism: false,
 					testTimeout: 30_000,

@@ -4,7 +4,11 @@
  * storage/test (never the development data), then runs the static checks, Vitest (unit,
  * component, integration) and the end-to-end tests in Chromium against a fresh build, stops what it
  * started (on every exit path), and ends with one plain line: `N passed, N failed, N skipped`.
- * Extra arguments are passed to Vitest (e.g. `npm test -- src/lib/thermal`), except:
+ * Without arguments it runs the fast tier: everything but the files in tests/slow-tests.js.
+ * Extra arguments are passed to Vitest (e.g. `npm test -- src/lib/thermal`; a named file runs
+ * whatever its tier), except:
+ *   --slow           only the slow tier (`npm run test:slow`): fault, whole-stack and queue-timer tests
+ *   --all            both tiers and the static checks in one run (what CI runs)
  *   --cpu-burn       keep every core busy while Vitest runs (the suite must pass on a loaded machine)
  *   --services-only  start the test services and the test build, print their settings, wait for Ctrl-C
  */
@@ -17,10 +21,14 @@ import { ok, step, warn } from './lib/log.js';
 import { orchestrate } from './lib/orchestrator.js';
 import { claimRun } from './lib/runstate.js';
 
-const OWN_FLAGS = ['--cpu-burn', '--services-only'];
+const OWN_FLAGS = ['--cpu-burn', '--services-only', '--slow', '--all'];
 const cpuBurn = process.argv.includes('--cpu-burn');
 const servicesOnly = process.argv.includes('--services-only');
+const slowTier = process.argv.includes('--slow');
+const allTiers = process.argv.includes('--all');
 const vitestArgs = process.argv.slice(2).filter((a) => !OWN_FLAGS.includes(a));
+// Read by vite.config.ts. Named files or filters run as asked, whatever their tier.
+const tier = vitestArgs.length > 0 || allTiers ? undefined : slowTier ? 'slow' : 'fast';
 const bin = (/** @type {string} */ p) => path.join(ROOT, 'node_modules', p);
 
 await orchestrate(async () => {
@@ -41,7 +49,8 @@ await orchestrate(async () => {
 		...process.env,
 		...config.appEnv,
 		CHROMIUM_PATH,
-		TEST_APP_URL: config.appEnv.ORIGIN
+		TEST_APP_URL: config.appEnv.ORIGIN,
+		...(tier ? { THERMALITH_TEST_TIER: tier } : {})
 	};
 	const totals = { passed: 0, failed: 0, skipped: 0 };
 
@@ -68,7 +77,7 @@ await orchestrate(async () => {
 	const { seedDemoData } = await import('./lib/seed-runner.js');
 	await seedDemoData({ ...config.appEnv, THERMALITH_SEED: 'if-empty' });
 
-	if (vitestArgs.length === 0 && !servicesOnly) {
+	if (vitestArgs.length === 0 && !servicesOnly && tier !== 'slow') {
 		await check('svelte-check', 'svelte-check/bin/svelte-check', [
 			'--tsconfig',
 			'./tsconfig.json',
@@ -110,6 +119,7 @@ await orchestrate(async () => {
 			'--reporter=default',
 			'--reporter=json',
 			`--outputFile.json=${report}`,
+			...(tier === 'slow' ? ['--project', 'integration'] : []),
 			...vitestArgs
 		],
 		{ cwd: ROOT, env }

@@ -9,6 +9,8 @@ declare global {
 			viewer: import('$lib/server/access').Viewer;
 			user: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['user'] | null;
 			session: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['session'] | null;
+			/** Set by handleError when PostgreSQL was unreachable; the response becomes a 503. */
+			databaseDown?: boolean;
 		}
 		// interface PageData {}
 		// interface PageState {}

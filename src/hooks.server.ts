@@ -6,6 +6,12 @@ import { auth } from '$lib/server/auth';
 import { stampClientAddress } from '$lib/server/auth/client-address';
 import { config } from '$lib/server/config';
 import { closeDb, getDb } from '$lib/server/db';
+import {
+	asUnavailable,
+	DATABASE_DOWN_MESSAGE,
+	databaseDownResponse,
+	isDatabaseUnavailable
+} from '$lib/server/database-down';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
@@ -52,6 +58,18 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	});
 };
 
+/** PostgreSQL unreachable: 503 with Retry-After instead of a 500 (database-down.ts says why). */
+const databaseDown: Handle = async ({ event, resolve }) => {
+	try {
+		const response = await resolve(event);
+		return event.locals.databaseDown && response.status >= 500 ? asUnavailable(response) : response;
+	} catch (err) {
+		if (!isDatabaseUnavailable(err)) throw err;
+		console.error(`database unreachable: ${event.request.method} ${event.url.pathname}`);
+		return databaseDownResponse(event.url.pathname);
+	}
+};
+
 /**
  * Before any work: state-changing requests with cookies must come from this site's pages, and
  * no address may carry a NUL character.
@@ -68,11 +86,19 @@ const session: Handle = async ({ event, resolve }) => {
 	return svelteKitHandler({ event, resolve, auth: auth(), building });
 };
 
-export const handle: Handle = sequence(securityHeaders, requestGuards, session);
+export const handle: Handle = sequence(securityHeaders, databaseDown, requestGuards, session);
 
 /** Unexpected errors: log them with an id the user can quote; show nothing internal. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	const errorId = crypto.randomUUID();
+	if (isDatabaseUnavailable(error)) {
+		// The databaseDown handle turns this answer into a 503.
+		event.locals.databaseDown = true;
+		console.error(
+			`[error ${errorId}] database unreachable: ${event.request.method} ${event.url.pathname}`
+		);
+		return { message: DATABASE_DOWN_MESSAGE, errorId };
+	}
 	if (status !== 404) {
 		console.error(`[error ${errorId}] ${event.request.method} ${event.url.pathname}`, error);
 	}

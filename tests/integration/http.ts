@@ -141,6 +141,23 @@ export class Client {
 		return res;
 	}
 
+	/** PUT a body that is still being produced (a slow upload), with this client's session. */
+	async putStream(path: string, body: ReadableStream<Uint8Array>): Promise<Response> {
+		const res = await this.fetch(testEnv.appUrl() + path, {
+			method: 'PUT',
+			headers: {
+				'content-type': 'application/octet-stream',
+				origin: testEnv.appUrl(),
+				cookie: this.cookieHeader()
+			},
+			body,
+			duplex: 'half',
+			redirect: 'manual'
+		} as RequestInit);
+		this.remember(res);
+		return res;
+	}
+
 	get signedIn() {
 		return [...this.cookies.keys()].some((k) => k.includes('session_token'));
 	}

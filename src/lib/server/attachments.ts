@@ -160,8 +160,9 @@ export async function receiveAttachmentContent(
 		}
 	} catch (err) {
 		console.error('attachment upload: the object store refused or is unreachable', err);
-		await removeObjects([objectKey, thumbnailKey]);
 		await discardPending();
+		// In the background: a store that is down would hold the answer for the deletes' timeouts too.
+		void removeObjects([objectKey, thumbnailKey]);
 		error(503, 'The file store could not be reached; the file was not kept. Try again.');
 	}
 	const updated = await markAttachmentReady(db, viewer, row, {

@@ -78,9 +78,29 @@ async function insertAll(db: Db, batchId: string, datasetId: string, rows: NewSi
 			(err as { code?: string }).code === '23505'
 				? 'A site code in the file was added to the dataset meanwhile; nothing was written.'
 				: 'The import failed and was rolled back; nothing was written.';
-		await db
-			.update(importBatch)
-			.set({ status: 'failed', error: message, doneRows: 0, finishedAt: new Date() })
-			.where(eq(importBatch.id, batchId));
+		await recordFailure(db, batchId, message);
+	}
+}
+
+/**
+ * Mark the batch failed. PostgreSQL itself may be what failed (stopped, restarting), so keep
+ * trying for a few minutes rather than give up at once or leave a rejected promise that nothing
+ * handles (which would end the process); past that, failStaleImports (stale.ts) ends the batch.
+ */
+async function recordFailure(db: Db, batchId: string, message: string, tries = 150, waitMs = 2000) {
+	for (let attempt = 1; ; attempt++) {
+		try {
+			await db
+				.update(importBatch)
+				.set({ status: 'failed', error: message, doneRows: 0, finishedAt: new Date() })
+				.where(eq(importBatch.id, batchId));
+			return;
+		} catch (err) {
+			if (attempt >= tries) {
+				console.error(`[import ${batchId}] could not record the failure`, err);
+				return;
+			}
+			await new Promise((r) => setTimeout(r, waitMs));
+		}
 	}
 }
