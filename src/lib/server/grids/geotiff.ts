@@ -1,0 +1,35 @@
+import { writeArrayBuffer } from 'geotiff';
+import type { GridPlan } from '$lib/grids/plan';
+
+/** The nodata value written for masked cells (GDAL_NODATA tag): outside any heat-flow range. */
+export const NODATA = -9999;
+
+/**
+ * A single-band Float32 GeoTIFF of a grid in its computation CRS: north-up (GDAL row r is our
+ * row ny − 1 − r), pixel-is-area, the EPSG code as ProjectedCSTypeGeoKey, the geotransform as
+ * ModelTiepoint + ModelPixelScale, nodata in GDAL_NODATA. `description` goes to the TIFF
+ * ImageDescription tag (kept short: the writer has a fixed-size directory).
+ */
+export function gridGeoTiff(cells: Float32Array, plan: GridPlan, description: string): Buffer {
+	const { nx, ny, x0, y0, dx, dy } = plan.grid;
+	const northUp = new Float32Array(nx * ny);
+	for (let r = 0; r < ny; r++) {
+		const j = ny - 1 - r;
+		for (let i = 0; i < nx; i++) {
+			const v = cells[j * nx + i];
+			northUp[r * nx + i] = Number.isNaN(v) ? NODATA : v;
+		}
+	}
+	const buffer = writeArrayBuffer(northUp, {
+		width: nx,
+		height: ny,
+		ModelPixelScale: [dx, dy, 0],
+		ModelTiepoint: [0, 0, 0, x0, y0 + ny * dy, 0],
+		GTModelTypeGeoKey: 1,
+		GTRasterTypeGeoKey: 1,
+		ProjectedCSTypeGeoKey: plan.crs.epsg,
+		GDAL_NODATA: String(NODATA),
+		ImageDescription: description.slice(0, 400)
+	} as Parameters<typeof writeArrayBuffer>[1]);
+	return Buffer.from(buffer);
+}

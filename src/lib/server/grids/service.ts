@@ -1,0 +1,180 @@
+import { error } from '@sveltejs/kit';
+import type PgBoss from 'pg-boss';
+import type { GridVariogram } from '$lib/grids/compute';
+import { gridRequestSchema, requestProblem, type GridRequest } from '$lib/grids/request';
+import { notFound, type Viewer } from '../access';
+import type { Db } from '../db/client';
+import { enqueueGrid } from '../jobs/grid-queue';
+import {
+	deleteQueuedGrid,
+	findOrCreateGrid,
+	gridForViewer,
+	gridSources,
+	GridRequestError
+} from '../repositories/grids';
+import { cellsOf, planOf } from './cells';
+import { gridGeoTiff } from './geotiff';
+import { gridBoundsWgs84, gridContours, gridCsv, gridOverlayPng, sourceLine } from './outputs';
+
+/** Shown with every grid and in its downloads (ModelCaution says the same on pages). */
+export const GRID_CAUTION =
+	'Model estimate interpolated from the sites shown, assuming a stationary, isotropic field and the stated variogram; not a measurement. For drilling and resource decisions follow your local regulations and rely on a licensed professional.';
+
+/** Read and check a request body; 400 with one sentence when it is not a grid request. */
+export function parseGridRequest(body: unknown): GridRequest {
+	const parsed = gridRequestSchema.safeParse(body);
+	if (!parsed.success) error(400, `Bad grid request: ${requestProblem(parsed.error)}.`);
+	return parsed.data;
+}
+
+/** Find the cached grid for these inputs or queue a new one. */
+export async function requestGrid(db: Db, boss: PgBoss, viewer: Viewer, req: GridRequest) {
+	let found: { id: string; cached: boolean };
+	try {
+		found = await findOrCreateGrid(db, viewer, req);
+	} catch (err) {
+		if (err instanceof GridRequestError) error(400, `Bad grid request: ${err.message}.`);
+		throw err;
+	}
+	if (!found.cached) {
+		try {
+			await enqueueGrid(boss, found.id);
+		} catch (err) {
+			await deleteQueuedGrid(db, found.id);
+			throw err;
+		}
+	}
+	return found;
+}
+
+export const GRID_FILES = {
+	'heat-flow.tif': 'image/tiff',
+	'sigma.tif': 'image/tiff',
+	'grid.csv': 'text/csv; charset=utf-8',
+	'contours.geojson': 'application/geo+json',
+	'heat-flow.png': 'image/png',
+	'sigma.png': 'image/png'
+} as const;
+export type GridFile = keyof typeof GRID_FILES;
+
+function variogramView(v: GridVariogram | null) {
+	if (!v) return null;
+	return {
+		model: v.model,
+		nuggetMWm2: v.nugget,
+		sillMWm2: v.nugget + v.partialSill,
+		rangeM: v.rangeM,
+		source: v.source,
+		note: v.note ?? null,
+		meanMeasurementVarianceMWm2: v.meanMeasurementVarianceMWm2
+	};
+}
+
+/** The status document of `GET /api/v1/grids/{id}`. */
+export async function gridStatus(db: Db, viewer: Viewer, id: string) {
+	const row = await gridForViewer(db, viewer, id);
+	const plan = planOf(row);
+	const req = row.request as unknown as GridRequest;
+	const result = (row.result ?? {}) as Record<string, unknown>;
+	const base = `/api/v1/grids/${row.id}`;
+	const done = row.status === 'done';
+	const hasSigma = done && row.sigmaCells !== null;
+	return {
+		id: row.id,
+		status: row.status,
+		progress: row.progress,
+		error: row.error,
+		request: req,
+		crs: { epsg: plan.crs.epsg, name: plan.crs.name },
+		grid: plan.grid,
+		boundsWgs84: gridBoundsWgs84(plan),
+		sitesUsed: done ? result.sitesUsed : (row.samples as unknown[]).length,
+		maskedCells: result.maskedCells ?? null,
+		valueRangeMWm2: result.valueRange ?? null,
+		sigmaRangeMWm2: result.sigmaRange ?? null,
+		variogram: variogramView((result.variogram as GridVariogram | null) ?? null),
+		measurementError: result.measurementError ?? null,
+		empiricalVariogram: result.empirical ?? [],
+		crossValidation: result.crossValidation ?? null,
+		links: done
+			? {
+					geotiff: `${base}/heat-flow.tif`,
+					sigmaGeotiff: hasSigma ? `${base}/sigma.tif` : null,
+					csv: `${base}/grid.csv`,
+					png: `${base}/heat-flow.png`,
+					sigmaPng: hasSigma ? `${base}/sigma.png` : null,
+					contours: `${base}/contours.geojson`
+				}
+			: null,
+		caution: GRID_CAUTION,
+		createdAt: row.createdAt,
+		finishedAt: row.finishedAt
+	};
+}
+
+/** One download of a finished grid, or the shared 404 (unknown, hidden, unfinished, no σ). */
+export async function gridFile(
+	db: Db,
+	viewer: Viewer,
+	id: string,
+	name: string
+): Promise<{ body: Buffer | string; type: string; fileName: string }> {
+	if (!(name in GRID_FILES)) notFound();
+	const file = name as GridFile;
+	const row = await gridForViewer(db, viewer, id);
+	if (row.status !== 'done') notFound();
+	const plan = planOf(row);
+	const value = cellsOf(row.valueCells)!;
+	const sigma = cellsOf(row.sigmaCells);
+	const wantsSigma = file.startsWith('sigma');
+	if (wantsSigma && !sigma) notFound();
+	const req = row.request as unknown as GridRequest;
+	const sources = await gridSources(db, row.datasetIds);
+	const fileName = `thermalith-grid-${row.id.slice(0, 8)}-${file}`;
+	const type = GRID_FILES[file];
+	const what = `${req.method === 'kriging' ? 'Ordinary kriging' : 'IDW'} heat-flow ${wantsSigma ? 'standard error (1 sigma)' : 'estimate'}, mW/m2, EPSG:${plan.crs.epsg}`;
+	switch (file) {
+		case 'heat-flow.tif':
+		case 'sigma.tif': {
+			const cite = sources.map((s) => `${s.title} (${s.licence})`).join('; ');
+			const description = `Thermalith grid ${row.id}. ${what}. Model estimate. Sources: ${cite}. Full citations: ${`/api/v1/grids/${row.id}/grid.csv`}`;
+			return { body: gridGeoTiff(wantsSigma ? sigma! : value, plan, description), type, fileName };
+		}
+		case 'grid.csv':
+			return {
+				body: gridCsv(
+					plan,
+					value,
+					sigma,
+					[`Thermalith grid ${row.id}: ${what}`, GRID_CAUTION],
+					sources
+				),
+				type,
+				fileName
+			};
+		case 'contours.geojson': {
+			const fc = gridContours(plan, value);
+			return {
+				body: JSON.stringify({
+					...fc,
+					description: `${what}; filled bands, heatFlowMinMWm2 = lower bound. ${GRID_CAUTION}`,
+					sources: sources.map(sourceLine)
+				}),
+				type,
+				fileName
+			};
+		}
+		case 'heat-flow.png':
+		case 'sigma.png':
+			return {
+				body: await gridOverlayPng(
+					plan,
+					wantsSigma ? sigma! : value,
+					wantsSigma ? 'sigma' : 'value',
+					gridBoundsWgs84(plan)
+				),
+				type,
+				fileName
+			};
+	}
+}
