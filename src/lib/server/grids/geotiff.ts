@@ -1,4 +1,3 @@
-import { writeArrayBuffer } from 'geotiff';
 import type { GridPlan } from '$lib/grids/plan';
 
 /** The nodata value written for masked cells (GDAL_NODATA tag): outside any heat-flow range. */
@@ -9,8 +8,17 @@ export const NODATA = -9999;
  * row ny − 1 − r), pixel-is-area, the EPSG code as ProjectedCSTypeGeoKey, the geotransform as
  * ModelTiepoint + ModelPixelScale, nodata in GDAL_NODATA. `description` goes to the TIFF
  * ImageDescription tag (kept short: the writer has a fixed-size directory).
+ *
+ * `geotiff` is imported when first used, not at load: its entry point pulls in a web-worker shim
+ * that throws when loaded inside a Node worker thread, which is where SvelteKit's build analyses
+ * the server code.
  */
-export function gridGeoTiff(cells: Float32Array, plan: GridPlan, description: string): Buffer {
+export async function gridGeoTiff(
+	cells: Float32Array,
+	plan: GridPlan,
+	description: string
+): Promise<Buffer> {
+	const { writeArrayBuffer } = await import('geotiff');
 	const { nx, ny, x0, y0, dx, dy } = plan.grid;
 	const northUp = new Float32Array(nx * ny);
 	for (let r = 0; r < ny; r++) {
@@ -30,6 +38,6 @@ export function gridGeoTiff(cells: Float32Array, plan: GridPlan, description: st
 		ProjectedCSTypeGeoKey: plan.crs.epsg,
 		GDAL_NODATA: String(NODATA),
 		ImageDescription: description.slice(0, 400)
-	} as Parameters<typeof writeArrayBuffer>[1]);
+	} as unknown as Parameters<typeof writeArrayBuffer>[1]);
 	return Buffer.from(buffer);
 }

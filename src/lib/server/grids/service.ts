@@ -138,7 +138,11 @@ export async function gridFile(
 		case 'sigma.tif': {
 			const cite = sources.map((s) => `${s.title} (${s.licence})`).join('; ');
 			const description = `Thermalith grid ${row.id}. ${what}. Model estimate. Sources: ${cite}. Full citations: ${`/api/v1/grids/${row.id}/grid.csv`}`;
-			return { body: gridGeoTiff(wantsSigma ? sigma! : value, plan, description), type, fileName };
+			return {
+				body: await gridGeoTiff(wantsSigma ? sigma! : value, plan, description),
+				type,
+				fileName
+			};
 		}
 		case 'grid.csv':
 			return {
