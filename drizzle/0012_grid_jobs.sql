@@ -5,6 +5,7 @@ CREATE TABLE "grid" (
 	"input_hash" text NOT NULL,
 	"status" "grid_status" DEFAULT 'queued' NOT NULL,
 	"progress" double precision DEFAULT 0 NOT NULL,
+	"attempt" integer DEFAULT 0 NOT NULL,
 	"error" text,
 	"request" jsonb NOT NULL,
 	"plan" jsonb NOT NULL,

@@ -15,6 +15,7 @@ import { createDb } from '../../src/lib/server/db/client';
 import { site } from '../../src/lib/server/db/schema';
 import { testEnv } from './env';
 import { Client, DEMO_PASSWORD, signIn } from './http';
+import { USER_RATE_RULES } from '../../src/lib/server/auth/rate-rules';
 
 const run = promisify(execFile);
 const { db, client: sql } = createDb(testEnv.databaseUrl(), { max: 2 });
@@ -166,6 +167,35 @@ describe('a kriging grid requested by an anonymous visitor', () => {
 		expect(sigma.stac['proj:epsg']).toBe(32632);
 	});
 
+	it('derives temperature at 3 km and the depth of 150 °C as P10/P50/P90 GeoTIFF bands', async () => {
+		const file = path.join(tmp, 'at-depth.tif');
+		await writeFile(
+			file,
+			await download(anonymous, `/api/v1/grids/${id}/temperature-at-depth.tif?depthM=3000`)
+		);
+		const info = JSON.parse((await run('gdalinfo', ['-json', '-stats', file])).stdout);
+		expect(info.bands).toHaveLength(3);
+		expect(info.stac['proj:epsg']).toBe(32632);
+		const [p10, p50, p90] = info.bands.map((b: { mean: number }) => b.mean);
+		expect(p10).toBeLessThan(p50);
+		expect(p50).toBeLessThan(p90);
+		// 10 °C at the surface plus roughly 3 km × q/k: between 50 and 150 °C for 40–100 mW/m².
+		expect(p50).toBeGreaterThan(50);
+		expect(p50).toBeLessThan(150);
+		const depthFile = path.join(tmp, 'isotherm.tif');
+		await writeFile(
+			depthFile,
+			await download(anonymous, `/api/v1/grids/${id}/isotherm-depth.tif?temperatureC=150`)
+		);
+		const depth = JSON.parse((await run('gdalinfo', ['-json', '-stats', depthFile])).stdout);
+		const [d10, d50, d90] = depth.bands.map((b: { mean: number }) => b.mean);
+		expect(d10).toBeLessThan(d50);
+		expect(d50).toBeLessThan(d90);
+		expect(
+			(await anonymous.get(`/api/v1/grids/${id}/isotherm-depth.tif?temperatureC=abc`)).status
+		).toBe(400);
+	});
+
 	it('cites the datasets that shaped it (public survey only) in the CSV and the contours', async () => {
 		const csv = await (await anonymous.get(`/api/v1/grids/${id}/grid.csv`)).text();
 		expect(csv).toMatch(/# - .*Korvald.*\(licence: CC-BY-4\.0\)/);
@@ -239,6 +269,19 @@ describe('bad grid requests', () => {
 		});
 		expect(res.status).toBe(400);
 		expect((await res.json()).message).toMatch(/JSON/);
+	});
+
+	it('more new grids than the limit from one address: 429 with Retry-After; cached ones still answer', async () => {
+		const caller = new Client();
+		const distinct = (i: number) => ({ ...REQUEST, method: 'idw', cellSizeM: 30_000 + i * 100 });
+		const max = USER_RATE_RULES['grid-job'].max;
+		for (let i = 0; i < max; i++) expect((await post(caller, distinct(i))).res.status).toBe(202);
+		const refused = await post(caller, distinct(max));
+		expect(refused.res.status).toBe(429);
+		expect(Number(refused.res.headers.get('retry-after'))).toBeGreaterThan(0);
+		expect(refused.body.message).toMatch(/Too many new grids/);
+		// A request for a grid that exists costs nothing and is not refused.
+		expect((await post(caller, distinct(0))).body.cached).toBe(true);
 	});
 
 	it('an unknown download name or grid id: 404', async () => {

@@ -36,6 +36,9 @@ export interface GridStatusView {
 		png: string;
 		sigmaPng: string | null;
 		contours: string;
+		temperatureAtDepth: string;
+		isothermDepth: string;
 	} | null;
 	caution: string;
+	atDepthAssumptions: string;
 }

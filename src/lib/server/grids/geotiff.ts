@@ -14,18 +14,23 @@ export const NODATA = -9999;
  * the server code.
  */
 export async function gridGeoTiff(
-	cells: Float32Array,
+	cells: Float32Array | Float32Array[],
 	plan: GridPlan,
 	description: string
 ): Promise<Buffer> {
 	const { writeArrayBuffer } = await import('geotiff');
+	const bands = Array.isArray(cells) ? cells : [cells];
+	const nb = bands.length;
 	const { nx, ny, x0, y0, dx, dy } = plan.grid;
-	const northUp = new Float32Array(nx * ny);
+	// Pixel-interleaved (PlanarConfiguration 1): band values of one pixel side by side.
+	const northUp = new Float32Array(nx * ny * nb);
 	for (let r = 0; r < ny; r++) {
 		const j = ny - 1 - r;
 		for (let i = 0; i < nx; i++) {
-			const v = cells[j * nx + i];
-			northUp[r * nx + i] = Number.isNaN(v) ? NODATA : v;
+			for (let b = 0; b < nb; b++) {
+				const v = bands[b][j * nx + i];
+				northUp[(r * nx + i) * nb + b] = Number.isNaN(v) ? NODATA : v;
+			}
 		}
 	}
 	const buffer = writeArrayBuffer(northUp, {

@@ -1,8 +1,17 @@
 import { error } from '@sveltejs/kit';
 import type PgBoss from 'pg-boss';
 import type { GridVariogram } from '$lib/grids/compute';
+import {
+	AT_DEPTH_ASSUMPTIONS,
+	DEFAULT_AT_DEPTH_M,
+	DEFAULT_ISOTHERM_C,
+	isothermDepthGrid,
+	temperatureAtDepthGrid
+} from '$lib/grids/at-depth';
 import { gridRequestSchema, requestProblem, type GridRequest } from '$lib/grids/request';
 import { notFound, type Viewer } from '../access';
+import { USER_RATE_RULES } from '../auth/rate-rules';
+import { countAttempt } from '../rate-limit';
 import type { Db } from '../db/client';
 import { enqueueGrid } from '../jobs/grid-queue';
 import {
@@ -27,8 +36,17 @@ export function parseGridRequest(body: unknown): GridRequest {
 	return parsed.data;
 }
 
-/** Find the cached grid for these inputs or queue a new one. */
-export async function requestGrid(db: Db, boss: PgBoss, viewer: Viewer, req: GridRequest) {
+/**
+ * Find the cached grid for these inputs or queue a new one. `caller` keys the limit on new jobs
+ * (USER_RATE_RULES['grid-job']): the user id, or the client address of an anonymous caller.
+ */
+export async function requestGrid(
+	db: Db,
+	boss: PgBoss,
+	viewer: Viewer,
+	req: GridRequest,
+	caller: string
+): Promise<{ id: string; cached: boolean } | { refused: true; retryAfterS: number }> {
 	let found: { id: string; cached: boolean };
 	try {
 		found = await findOrCreateGrid(db, viewer, req);
@@ -37,6 +55,11 @@ export async function requestGrid(db: Db, boss: PgBoss, viewer: Viewer, req: Gri
 		throw err;
 	}
 	if (!found.cached) {
+		const verdict = await countAttempt(db, `grid|${caller}`, USER_RATE_RULES['grid-job']);
+		if (!verdict.allowed) {
+			await deleteQueuedGrid(db, found.id);
+			return { refused: true, retryAfterS: verdict.retryAfterS };
+		}
 		try {
 			await enqueueGrid(boss, found.id);
 		} catch (err) {
@@ -53,7 +76,9 @@ export const GRID_FILES = {
 	'grid.csv': 'text/csv; charset=utf-8',
 	'contours.geojson': 'application/geo+json',
 	'heat-flow.png': 'image/png',
-	'sigma.png': 'image/png'
+	'sigma.png': 'image/png',
+	'temperature-at-depth.tif': 'image/tiff',
+	'isotherm-depth.tif': 'image/tiff'
 } as const;
 export type GridFile = keyof typeof GRID_FILES;
 
@@ -103,13 +128,32 @@ export async function gridStatus(db: Db, viewer: Viewer, id: string) {
 					csv: `${base}/grid.csv`,
 					png: `${base}/heat-flow.png`,
 					sigmaPng: hasSigma ? `${base}/sigma.png` : null,
-					contours: `${base}/contours.geojson`
+					contours: `${base}/contours.geojson`,
+					temperatureAtDepth: `${base}/temperature-at-depth.tif?depthM=${DEFAULT_AT_DEPTH_M}`,
+					isothermDepth: `${base}/isotherm-depth.tif?temperatureC=${DEFAULT_ISOTHERM_C}`
 				}
 			: null,
 		caution: GRID_CAUTION,
+		atDepthAssumptions: AT_DEPTH_ASSUMPTIONS,
 		createdAt: row.createdAt,
 		finishedAt: row.finishedAt
 	};
+}
+
+/** A number query parameter within [min, max], or its default; 400 otherwise. */
+function numberParam(
+	params: URLSearchParams,
+	name: string,
+	fallback: number,
+	min: number,
+	max: number
+) {
+	const raw = params.get(name);
+	if (raw === null || raw === '') return fallback;
+	const v = Number(raw);
+	if (!Number.isFinite(v) || v < min || v > max)
+		error(400, `${name} must be a number from ${min} to ${max}; got ${raw.slice(0, 20)}.`);
+	return v;
 }
 
 /** One download of a finished grid, or the shared 404 (unknown, hidden, unfinished, no σ). */
@@ -117,7 +161,8 @@ export async function gridFile(
 	db: Db,
 	viewer: Viewer,
 	id: string,
-	name: string
+	name: string,
+	params: URLSearchParams = new URLSearchParams()
 ): Promise<{ body: Buffer | string; type: string; fileName: string }> {
 	if (!(name in GRID_FILES)) notFound();
 	const file = name as GridFile;
@@ -167,6 +212,18 @@ export async function gridFile(
 				type,
 				fileName
 			};
+		}
+		case 'temperature-at-depth.tif': {
+			const depthM = numberParam(params, 'depthM', DEFAULT_AT_DEPTH_M, 100, 30_000);
+			const t = temperatureAtDepthGrid(value, sigma, depthM);
+			const description = `Thermalith grid ${row.id}. Temperature (deg C) at ${depthM} m; bands P10, P50, P90. Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
+			return { body: await gridGeoTiff([t.p10, t.p50, t.p90], plan, description), type, fileName };
+		}
+		case 'isotherm-depth.tif': {
+			const isothermC = numberParam(params, 'temperatureC', DEFAULT_ISOTHERM_C, 20, 1000);
+			const d = isothermDepthGrid(value, sigma, isothermC);
+			const description = `Thermalith grid ${row.id}. Depth (m) of ${isothermC} deg C; bands P10, P50, P90 (P10 shallowest). Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
+			return { body: await gridGeoTiff([d.p10, d.p50, d.p90], plan, description), type, fileName };
 		}
 		case 'heat-flow.png':
 		case 'sigma.png':

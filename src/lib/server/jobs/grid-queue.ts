@@ -23,6 +23,8 @@ export async function enqueueGrid(boss: PgBoss, gridId: string): Promise<void> {
 	await boss.send(QUEUES.grid.name, { gridId } satisfies GridJob, { singletonKey: gridId });
 }
 
+class Superseded extends Error {}
+
 /** Write progress at most this often: every strip would be a write per few milliseconds. */
 const PROGRESS_EVERY_MS = 250;
 
@@ -34,7 +36,8 @@ const PROGRESS_EVERY_MS = 250;
 export async function runGridJob(db: Db, gridId: string): Promise<void> {
 	const row = await gridForJob(db, gridId);
 	if (!row || row.status === 'done' || row.status === 'failed') return;
-	await markGridRunning(db, gridId);
+	const attempt = await markGridRunning(db, gridId);
+	if (attempt === null) return;
 	const req = row.request as unknown as GridRequest;
 	const plan = row.plan as unknown as GridPlan;
 	const samples = row.samples as GridSample[];
@@ -53,7 +56,7 @@ export async function runGridJob(db: Db, gridId: string): Promise<void> {
 				const now = Date.now();
 				if (now - last >= PROGRESS_EVERY_MS && fraction < 1) {
 					last = now;
-					await setGridProgress(db, gridId, fraction);
+					if (!(await setGridProgress(db, gridId, attempt, fraction))) throw new Superseded();
 				}
 				// Let the web server (when it shares this process) answer requests between strips.
 				await new Promise((r) => setImmediate(r));
@@ -62,6 +65,7 @@ export async function runGridJob(db: Db, gridId: string): Promise<void> {
 		await finishGrid(
 			db,
 			gridId,
+			attempt,
 			{
 				variogram: out.variogram,
 				measurementError: req.method === 'kriging' ? MEASUREMENT_ERROR_TREATMENT : null,
@@ -76,8 +80,10 @@ export async function runGridJob(db: Db, gridId: string): Promise<void> {
 			out.sigma
 		);
 	} catch (err) {
+		// A later run of the same job owns the grid now (this one was taken for dead): stop quietly.
+		if (err instanceof Superseded) return;
 		if (err instanceof InputError || err instanceof SingularSystemError) {
-			await failGrid(db, gridId, `The grid could not be computed: ${err.message}`);
+			await failGrid(db, gridId, attempt, `The grid could not be computed: ${err.message}`);
 			return;
 		}
 		throw err;

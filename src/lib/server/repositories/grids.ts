@@ -165,18 +165,39 @@ export async function gridForJob(db: Db, id: string): Promise<Grid | null> {
 	return row ?? null;
 }
 
-export async function markGridRunning(db: Db, id: string): Promise<void> {
-	await db.update(grid).set({ status: 'running', progress: 0, error: null }).where(eq(grid.id, id));
+/** Start a run: the row is now this run's (its attempt number), unless the grid is already done. */
+export async function markGridRunning(db: Db, id: string): Promise<number | null> {
+	const [row] = await db
+		.update(grid)
+		.set({ status: 'running', progress: 0, error: null, attempt: sql`${grid.attempt} + 1` })
+		.where(and(eq(grid.id, id), inArray(grid.status, ['queued', 'running'])))
+		.returning({ attempt: grid.attempt });
+	return row?.attempt ?? null;
 }
 
-export async function setGridProgress(db: Db, id: string, progress: number): Promise<void> {
-	await db.update(grid).set({ progress }).where(eq(grid.id, id));
+const ownedBy = (id: string, attempt: number) =>
+	and(eq(grid.id, id), eq(grid.attempt, attempt), eq(grid.status, 'running'));
+
+/** Progress of a run; false when a later run owns the row (this one should stop). */
+export async function setGridProgress(
+	db: Db,
+	id: string,
+	attempt: number,
+	progress: number
+): Promise<boolean> {
+	const rows = await db
+		.update(grid)
+		.set({ progress })
+		.where(ownedBy(id, attempt))
+		.returning({ id: grid.id });
+	return rows.length > 0;
 }
 
 /** The finished grid, written in one statement: a reader sees all of it or none. */
 export async function finishGrid(
 	db: Db,
 	id: string,
+	attempt: number,
 	result: Record<string, unknown>,
 	value: Float32Array,
 	sigma: Float32Array | null
@@ -191,12 +212,17 @@ export async function finishGrid(
 			sigmaCells: sigma ? Buffer.from(sigma.buffer, sigma.byteOffset, sigma.byteLength) : null,
 			finishedAt: new Date()
 		})
-		.where(eq(grid.id, id));
+		.where(ownedBy(id, attempt));
 }
 
-export async function failGrid(db: Db, id: string, message: string): Promise<void> {
+export async function failGrid(
+	db: Db,
+	id: string,
+	attempt: number,
+	message: string
+): Promise<void> {
 	await db
 		.update(grid)
 		.set({ status: 'failed', error: message, finishedAt: new Date() })
-		.where(eq(grid.id, id));
+		.where(ownedBy(id, attempt));
 }

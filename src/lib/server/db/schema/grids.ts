@@ -3,6 +3,7 @@ import {
 	customType,
 	doublePrecision,
 	index,
+	integer,
 	jsonb,
 	pgEnum,
 	pgTable,
@@ -35,6 +36,11 @@ export const grid = pgTable(
 		status: gridStatus().notNull().default('queued'),
 		/** 0–1. */
 		progress: doublePrecision().notNull().default(0),
+		/**
+		 * Which run of the job owns the row: a run that pg-boss re-queued after its expiry (a killed
+		 * or very slow worker) supersedes the earlier one, whose writes then match no row and stop it.
+		 */
+		attempt: integer().notNull().default(0),
 		error: text(),
 		request: jsonb().$type<Record<string, unknown>>().notNull(),
 		/** Computation CRS and grid geometry. */

@@ -1,4 +1,5 @@
 import { json } from '@sveltejs/kit';
+import { clientAddress } from '$lib/server/auth/client-address';
 import { config } from '$lib/server/config';
 import { getDb } from '$lib/server/db';
 import { parseGridRequest, requestGrid } from '$lib/server/grids/service';
@@ -19,7 +20,14 @@ export const POST: RequestHandler = async (event) => {
 	}
 	const req = parseGridRequest(body);
 	const boss = await jobs(config().DATABASE_URL);
-	const { id, cached } = await requestGrid(getDb(), boss, event.locals.viewer, req);
+	const caller = event.locals.viewer.userId ?? `address|${clientAddress(event.request)}`;
+	const found = await requestGrid(getDb(), boss, event.locals.viewer, req, caller);
+	if ('refused' in found)
+		return json(
+			{ message: `Too many new grids; try again in ${found.retryAfterS} s.` },
+			{ status: 429, headers: { 'retry-after': String(found.retryAfterS) } }
+		);
+	const { id, cached } = found;
 	const location = `/api/v1/grids/${id}`;
 	return json({ id, cached, location }, { status: 202, headers: { location } });
 };

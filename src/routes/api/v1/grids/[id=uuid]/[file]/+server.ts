@@ -2,9 +2,18 @@ import { getDb } from '$lib/server/db';
 import { gridFile } from '$lib/server/grids/service';
 import type { RequestHandler } from './$types';
 
-/** A download of a finished grid: heat-flow.tif, sigma.tif, grid.csv, contours.geojson, heat-flow.png, sigma.png. */
+/**
+ * A download of a finished grid: heat-flow.tif, sigma.tif, grid.csv, contours.geojson,
+ * heat-flow.png, sigma.png, temperature-at-depth.tif?depthM=, isotherm-depth.tif?temperatureC=.
+ */
 export const GET: RequestHandler = async (event) => {
-	const file = await gridFile(getDb(), event.locals.viewer, event.params.id, event.params.file);
+	const file = await gridFile(
+		getDb(),
+		event.locals.viewer,
+		event.params.id,
+		event.params.file,
+		event.url.searchParams
+	);
 	const inline = file.type === 'image/png' || file.type.startsWith('application/geo+json');
 	return new Response(typeof file.body === 'string' ? file.body : new Uint8Array(file.body), {
 		headers: {
