@@ -2,7 +2,7 @@ import {
 	crossValidationResiduals,
 	defaultLagClasses,
 	empiricalVariogram,
-	fitBestVariogram,
+	fitVariogramToPoints,
 	inverseDistanceGrid,
 	maskByDistance,
 	mergeDuplicateSamples,
@@ -108,7 +108,12 @@ function chooseVariogram(
 	let fitted: Variogram | null = null;
 	let note = '';
 	try {
-		fitted = fitBestVariogram(samples);
+		// The same points as the plot: the O(n²) empirical variogram is computed once. The model
+		// with the smallest WLS objective wins, as fitBestVariogram chooses.
+		if (empirical.length === 0) throw new Error('no lag class holds a pair of sites');
+		fitted = (['spherical', 'exponential', 'gaussian'] as const)
+			.map((m) => fitVariogramToPoints(empirical, m))
+			.sort((x, y) => x.objective - y.objective)[0].variogram;
 		const ok = [fitted.nugget, fitted.partialSill, fitted.rangeM].every(Number.isFinite);
 		if (!ok || !(fitted.partialSill > 0) || !(fitted.rangeM > 0)) {
 			note = 'the fit gave no usable parameters';
