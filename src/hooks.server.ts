@@ -14,6 +14,7 @@ import {
 } from '$lib/server/database-down';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
+import { workGridQueue } from '$lib/server/jobs/grid-queue';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
 import { closeMailer, startMailWorker } from '$lib/server/mail';
 import { runtimeCspSources } from '$lib/server/csp-sources';
@@ -36,6 +37,7 @@ export const init: ServerInit = async () => {
 		// by pg-boss once it is, and must not keep the app from starting.
 		startMailWorker()
 			.then(async () => startHousekeeping(await jobs(config().DATABASE_URL), getDb()))
+			.then(async () => workGridQueue(await jobs(config().DATABASE_URL), getDb()))
 			.catch((err) => console.warn('job workers not started:', err.message));
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.

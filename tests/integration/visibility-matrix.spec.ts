@@ -180,6 +180,51 @@ afterAll(async () => {
 	await sql.end();
 });
 
+/**
+ * Grids: each case's dataset gets three more sites in a region of its own, so a grid of that
+ * region is made of that case's sites only (three is the fewest a grid takes).
+ */
+const gridBox = (c: CaseName) => {
+	const lon = 110 + caseNames.indexOf(c);
+	return [lon, -59.9, lon + 0.9, -59.1];
+};
+beforeAll(async () => {
+	for (const c of caseNames) {
+		const [w] = gridBox(c);
+		await db.insert(site).values(
+			[0, 1, 2].map((q) => ({
+				datasetId: ids[c].dataset,
+				code: `MXG-${caseNames.indexOf(c)}-${q}-${run}`,
+				location: { lon: w + 0.15 + q * 0.3, lat: -59.7 + q * 0.2 },
+				heatFlowMWm2: 60 + 7 * q
+			}))
+		);
+	}
+});
+
+/** A grid request for a case's region (cells of 10 km, IDW: quick). */
+const gridRequest = (k: Kind, c: CaseName) =>
+	clients[k].json('/api/v1/grids', { method: 'idw', bbox: gridBox(c), cellSizeM: 10_000 });
+/** The owner's grid of each case's region (the owner sees every state), once finished. */
+const ownerGrids = new Map<CaseName, Promise<string | null>>();
+const ownerGrid = (c: CaseName) => {
+	if (!ownerGrids.has(c))
+		ownerGrids.set(
+			c,
+			(async () => {
+				const res = await gridRequest('owner', c);
+				if (res.status !== 202) return null;
+				const { id } = await res.json();
+				for (;;) {
+					const body = await (await clients.owner.get(`/api/v1/grids/${id}`)).json();
+					if (body.status === 'done' || body.status === 'failed') return id as string;
+					await new Promise((r) => setTimeout(r, 200));
+				}
+			})()
+		);
+	return ownerGrids.get(c)!;
+};
+
 /** Anonymous callers of a write endpoint: 401 (API and actions) or a sign-in redirect (pages). */
 const ANONYMOUS_WRITE = [401, 303];
 
@@ -453,6 +498,60 @@ const ROUTES: Record<string, Row> = {
 					if (!(sees(k, c) && CASES[c].map)) return expectHidden(res);
 					expect(res.status).toBe(200);
 					expect((await res.json()).id).toBe(ids[c].site);
+				}
+			}
+		]
+	},
+	'/api/v1/grids': {
+		checks: [
+			{
+				name: "request a grid of a case's region (only sites the viewer sees on maps count)",
+				run: async (k, c) => {
+					const res = await gridRequest(k, c);
+					if (!(sees(k, c) && CASES[c].map)) {
+						expect(res.status).toBe(400);
+						return expect((await res.json()).message).toMatch(/0 visible site/);
+					}
+					expect(res.status).toBe(202);
+					const { id } = await res.json();
+					const body = await (await get(k, `/api/v1/grids/${id}`)).json();
+					expect(body.sitesUsed).toBe(3);
+				}
+			}
+		]
+	},
+	'/api/v1/grids/[id=uuid]': {
+		checks: [
+			{
+				name: "the owner's grid of a case's region (hidden unless every dataset used is visible)",
+				run: async (k, c) => {
+					const id = await ownerGrid(c);
+					if (!CASES[c].map) return expect(id).toBeNull();
+					const res = await get(k, `/api/v1/grids/${id}`);
+					if (!sees(k, c)) return expectHidden(res);
+					expect(res.status).toBe(200);
+					expect((await res.json()).status).toBe('done');
+				}
+			}
+		]
+	},
+	'/api/v1/grids/[id=uuid]/[file]': {
+		checks: [
+			{
+				name: "a download of the owner's grid (GeoTIFF, CSV with citations)",
+				run: async (k, c) => {
+					const id = await ownerGrid(c);
+					if (!CASES[c].map) return expect(id).toBeNull();
+					for (const file of ['heat-flow.tif', 'grid.csv']) {
+						const res = await get(k, `/api/v1/grids/${id}/${file}`);
+						if (!sees(k, c)) {
+							await expectHidden(res);
+							continue;
+						}
+						expect(res.status).toBe(200);
+						if (file === 'grid.csv') expect(await res.text()).toContain(title(c));
+						else await res.arrayBuffer();
+					}
 				}
 			}
 		]

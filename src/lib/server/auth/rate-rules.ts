@@ -24,7 +24,10 @@ export type AuthRateRule = keyof typeof AUTH_RATE_RULES;
  * the wizard calls it once per file and mapping change.
  */
 export const USER_RATE_RULES = {
-	'import-preview': { windowS: 60, max: 30 }
+	'import-preview': { windowS: 60, max: 30 },
+	// A new heat-flow grid costs a worker seconds of CPU; counted per user, or per client address
+	// for anonymous callers, and only when a new job is queued (a cached grid costs nothing).
+	'grid-job': { windowS: 600, max: 30 }
 } as const satisfies Record<string, RateRule>;
 
 export type UserRateRule = keyof typeof USER_RATE_RULES;

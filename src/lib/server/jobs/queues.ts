@@ -8,7 +8,10 @@ import type PgBoss from 'pg-boss';
 export const QUEUES = {
 	mail: { name: 'mail', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 120 },
 	// Periodic clean-up (expired pending uploads); a missed run is simply done by the next one.
-	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 }
+	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 },
+	// Heat-flow grids: a worker that dies mid-job (killed, restarted) leaves its job active until
+	// it expires, then pg-boss hands it to a worker again; the job starts the grid afresh.
+	grid: { name: 'grid', retryLimit: 3, retryDelay: 5, expireInSeconds: 900 }
 } as const satisfies Record<string, PgBoss.Queue>;
 
 /** Cron schedules (pg-boss keeps one per queue, whichever instance sets it; UTC). */

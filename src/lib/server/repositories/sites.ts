@@ -46,7 +46,7 @@ const siteSummaryColumns = {
 } satisfies Record<keyof SiteSummary, unknown>;
 
 /** The shared site filters ($lib/sites/filters.ts) as SQL; `page` is the caller's business. */
-function filterConditions(f: SiteFilters): SQL[] {
+export function filterConditions(f: SiteFilters): SQL[] {
 	const conditions: SQL[] = [];
 	if (f.quality.length) conditions.push(inArray(site.qualityClass, f.quality));
 	if (f.method.length) conditions.push(inArray(site.method, f.method));

@@ -7,3 +7,4 @@ export * from './site-data';
 export * from './site-values';
 export * from './files';
 export * from './audit';
+export * from './grids';

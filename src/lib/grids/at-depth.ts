@@ -1,0 +1,92 @@
+import { defaultCrustForSite } from '../chart-data';
+import { NORMAL_Z90, solveGeotherm, temperatureAtDepthC, type GeothermProfile } from '../thermal';
+import { firstCrossingM } from '../thermal/derived';
+
+/**
+ * Temperature at a depth and depth of an isotherm for every cell of a heat-flow grid, through the
+ * thermal core's steady conductive geotherm in the default three-layer crust (chart-data's
+ * site model, without temperature-dependent conductivity). With constant conductivities the
+ * geotherm is affine in the surface heat flow q0 (T(z; q0) = T(z; qa) + (q0 − qa) · ∂T/∂q0, the
+ * conduction equation being linear), so two solved profiles give every cell exactly.
+ *
+ * P10–P90 come from the heat-flow σ alone (normal, ± NORMAL_Z90 σ): temperature rises and the
+ * isotherm depth falls with q0, so the percentiles map through the monotone relation. Crustal
+ * uncertainty is not included. P10 is the 10th percentile (thermal/README.md).
+ */
+
+export const DEFAULT_AT_DEPTH_M = 3000;
+export const DEFAULT_ISOTHERM_C = 150;
+export const AT_DEPTH_ASSUMPTIONS =
+	'Steady one-dimensional conduction in an assumed three-layer continental crust (35 km, surface 10 °C, upper-crust heat production 2 µW/m³ decaying over 10 km); no groundwater flow or transients; P10–P90 from the heat-flow σ only.';
+
+const Q_A = 60;
+const Q_B = 100;
+
+/** The two reference profiles (mW/m² at the surface). */
+function references(): [GeothermProfile, GeothermProfile] {
+	const solve = (q: number) =>
+		solveGeotherm({ ...defaultCrustForSite({ heatFlowMWm2: q }).input, depthStepM: 50 });
+	return [solve(Q_A), solve(Q_B)];
+}
+
+export interface Percentiles {
+	p10: Float32Array;
+	p50: Float32Array;
+	p90: Float32Array;
+}
+
+/** Per cell: temperature (°C) at depthM, NaN where the heat flow is NaN. */
+export function temperatureAtDepthGrid(
+	value: Float32Array,
+	sigma: Float32Array | null,
+	depthM = DEFAULT_AT_DEPTH_M
+): Percentiles {
+	const [a, b] = references();
+	const ta = temperatureAtDepthC(a, depthM);
+	const slope = (temperatureAtDepthC(b, depthM) - ta) / (Q_B - Q_A);
+	const at = (q: number) => ta + (q - Q_A) * slope;
+	const out = {
+		p10: new Float32Array(value.length),
+		p50: new Float32Array(value.length),
+		p90: new Float32Array(value.length)
+	};
+	for (let c = 0; c < value.length; c++) {
+		const q = value[c];
+		const s = sigma ? sigma[c] : NaN;
+		out.p50[c] = at(q);
+		out.p10[c] = at(q - NORMAL_Z90 * s);
+		out.p90[c] = at(q + NORMAL_Z90 * s);
+	}
+	return out;
+}
+
+/** Per cell: depth (m) of the isotherm, NaN where not reached within the crust or no heat flow. */
+export function isothermDepthGrid(
+	value: Float32Array,
+	sigma: Float32Array | null,
+	isothermC = DEFAULT_ISOTHERM_C
+): Percentiles {
+	const [a, b] = references();
+	const n = a.depthM.length;
+	const dTdq = Float64Array.from(a.temperatureC, (t, k) => (b.temperatureC[k] - t) / (Q_B - Q_A));
+	const t = new Float64Array(n);
+	const depthAt = (q: number) => {
+		if (!Number.isFinite(q)) return NaN;
+		for (let k = 0; k < n; k++) t[k] = a.temperatureC[k] + (q - Q_A) * dTdq[k];
+		return firstCrossingM(a.depthM, t, isothermC) ?? NaN;
+	};
+	const out = {
+		p10: new Float32Array(value.length),
+		p50: new Float32Array(value.length),
+		p90: new Float32Array(value.length)
+	};
+	for (let c = 0; c < value.length; c++) {
+		const q = value[c];
+		const s = sigma ? sigma[c] : NaN;
+		out.p50[c] = depthAt(q);
+		// Hotter (q + zσ) means shallower: the 10th percentile of depth.
+		out.p10[c] = depthAt(q + NORMAL_Z90 * s);
+		out.p90[c] = depthAt(q - NORMAL_Z90 * s);
+	}
+	return out;
+}

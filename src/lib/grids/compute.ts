@@ -1,0 +1,276 @@
+import {
+	crossValidationResiduals,
+	defaultLagClasses,
+	empiricalVariogram,
+	fitVariogramToPoints,
+	inverseDistanceGrid,
+	maskByDistance,
+	mergeDuplicateSamples,
+	ordinaryKrigingGrid,
+	type GridSpec,
+	type Sample,
+	type Variogram,
+	type VariogramPoint
+} from '../geostats';
+import { DEFAULT_KRIGING_NEIGHBOURS, type GridRequest } from './request';
+
+/**
+ * One grid computation, pure (runs in the job worker, a benchmark or a test). Progress is
+ * reported through an async callback between row strips, which also lets a worker that shares
+ * its thread with a web server answer requests in between.
+ */
+
+export type VariogramSource = 'fitted' | 'user' | 'default';
+
+export interface GridVariogram extends Variogram {
+	source: VariogramSource;
+	/** Why the default was used, when it was. */
+	note?: string;
+	/** Mean σᵢ² of the sites, (mW/m²)², taken out of a fitted nugget (see MEASUREMENT_ERROR_TREATMENT). */
+	meanMeasurementVarianceMWm2: number;
+}
+
+export interface CrossValidation {
+	rmseMWm2: number;
+	meanErrorMWm2: number;
+	/** Kriging only: mean of error / predicted σ (≈ 0 when unbiased). */
+	meanStandardisedError: number | null;
+	/** Kriging only: RMS of error / predicted σ (≈ 1 when σ is right). */
+	rmsStandardisedError: number | null;
+	/** [observed, predicted] pairs for the plot, mW/m². */
+	pairs: [number, number][];
+}
+
+export interface GridComputation {
+	value: Float32Array;
+	/** Kriging standard error (1 σ, mW/m²); null for IDW, which has no error model. */
+	sigma: Float32Array | null;
+	variogram: GridVariogram | null;
+	empirical: VariogramPoint[];
+	crossValidation: CrossValidation;
+	sitesUsed: number;
+	maskedCells: number;
+}
+
+/**
+ * The one treatment of measurement error (README.md here): the sites' σ enter kriging as known
+ * measurement-error variance (added to the data covariance diagonal only, filtered kriging), so
+ * the empirical variogram's nugget, which already contains that noise, would count it twice. A
+ * FITTED nugget is therefore lowered by the sites' mean σᵢ² (not below 0) and keeps only
+ * micro-scale variation; a nugget the user enters is taken as that micro-scale part as it is.
+ */
+export const MEASUREMENT_ERROR_TREATMENT =
+	'Site σ is used as known measurement error; the fitted nugget is lowered by the mean site σ² so the error is not counted twice.';
+
+/** Rows per progress step: small enough to report often, large enough that set-up is negligible. */
+const STRIP_ROWS = 16;
+
+/** A variogram fit that fails or gives non-finite parameters falls back to this (documented default). */
+export function defaultVariogram(samples: Sample[]): Variogram {
+	const mean = samples.reduce((t, s) => t + s.value, 0) / samples.length;
+	const variance = samples.reduce((t, s) => t + (s.value - mean) ** 2, 0) / samples.length;
+	const { lagM, lags } = defaultLagClasses(samples);
+	// Sample variance as sill, no nugget, a third of the lag span as range (common practice, no source).
+	return {
+		model: 'spherical',
+		nugget: 0,
+		partialSill: variance > 0 ? variance : 1,
+		rangeM: (lagM * lags) / 3
+	};
+}
+
+function chooseVariogram(
+	samples: Sample[],
+	req: GridRequest
+): { variogram: GridVariogram; empirical: VariogramPoint[] } {
+	const withSigma = samples.map((s) => (s.sigma ?? 0) ** 2);
+	const meanMeasurementVarianceMWm2 = withSigma.reduce((t, v) => t + v, 0) / samples.length;
+	let empirical: VariogramPoint[] = [];
+	try {
+		empirical = empiricalVariogram(samples, defaultLagClasses(samples));
+	} catch {
+		empirical = [];
+	}
+	if (req.variogram) {
+		const v = req.variogram;
+		return {
+			empirical,
+			variogram: {
+				model: v.model,
+				nugget: v.nuggetMWm2,
+				partialSill: v.sillMWm2 - v.nuggetMWm2,
+				rangeM: v.rangeM,
+				source: 'user',
+				meanMeasurementVarianceMWm2
+			}
+		};
+	}
+	let fitted: Variogram | null = null;
+	let note = '';
+	try {
+		// The same points as the plot: the O(n²) empirical variogram is computed once. The model
+		// with the smallest WLS objective wins, as fitBestVariogram chooses.
+		if (empirical.length === 0) throw new Error('no lag class holds a pair of sites');
+		fitted = (['spherical', 'exponential', 'gaussian'] as const)
+			.map((m) => fitVariogramToPoints(empirical, m))
+			.sort((x, y) => x.objective - y.objective)[0].variogram;
+		const ok = [fitted.nugget, fitted.partialSill, fitted.rangeM].every(Number.isFinite);
+		if (!ok || !(fitted.partialSill > 0) || !(fitted.rangeM > 0)) {
+			note = 'the fit gave no usable parameters';
+			fitted = null;
+		}
+	} catch (err) {
+		note = `the fit failed (${(err as Error).message})`;
+		fitted = null;
+	}
+	if (!fitted) {
+		return {
+			empirical,
+			variogram: {
+				...defaultVariogram(samples),
+				source: 'default',
+				note: `Automatic variogram fit did not converge: ${note}; using the default (spherical, no nugget, sill = sample variance, range = a third of the lag span).`,
+				meanMeasurementVarianceMWm2
+			}
+		};
+	}
+	return {
+		empirical,
+		variogram: {
+			...fitted,
+			nugget: Math.max(0, fitted.nugget - meanMeasurementVarianceMWm2),
+			source: 'fitted',
+			meanMeasurementVarianceMWm2
+		}
+	};
+}
+
+/** Leave-one-out IDW: each site estimated from the others (the nearest maxNeighbours, or all). */
+function idwCrossValidation(samples: Sample[], power: number, k?: number): CrossValidation {
+	const pairs: [number, number][] = [];
+	const n = samples.length;
+	const d = new Float64Array(n);
+	const order = new Int32Array(n);
+	for (let i = 0; i < n; i++) {
+		for (let q = 0; q < n; q++)
+			d[q] = Math.hypot(samples[q].x - samples[i].x, samples[q].y - samples[i].y);
+		let ids: ArrayLike<number>;
+		if (k !== undefined && k < n - 1) {
+			for (let q = 0; q < n; q++) order[q] = q;
+			const sorted = Array.from(order).sort((a, b) => d[a] - d[b]);
+			ids = sorted.filter((q) => q !== i).slice(0, k);
+		} else ids = Array.from({ length: n }, (_, q) => q).filter((q) => q !== i);
+		let sw = 0;
+		let swz = 0;
+		let exact: number | null = null;
+		for (const q of Array.from(ids)) {
+			if (d[q] === 0) {
+				exact = samples[q].value;
+				break;
+			}
+			const w = 1 / d[q] ** power;
+			sw += w;
+			swz += w * samples[q].value;
+		}
+		pairs.push([samples[i].value, exact ?? swz / sw]);
+	}
+	return summarise(pairs, null);
+}
+
+function summarise(pairs: [number, number][], variances: number[] | null): CrossValidation {
+	const n = pairs.length;
+	let se = 0,
+		sse = 0,
+		sz = 0,
+		szz = 0;
+	pairs.forEach(([obs, pred], i) => {
+		const e = pred - obs;
+		se += e;
+		sse += e * e;
+		if (variances) {
+			const z = variances[i] > 0 ? e / Math.sqrt(variances[i]) : 0;
+			sz += z;
+			szz += z * z;
+		}
+	});
+	return {
+		rmseMWm2: Math.sqrt(sse / n),
+		meanErrorMWm2: se / n,
+		meanStandardisedError: variances ? sz / n : null,
+		rmsStandardisedError: variances ? Math.sqrt(szz / n) : null,
+		pairs
+	};
+}
+
+/** Samples are projected metres and mW/m²; `onProgress` gets a fraction 0–1. */
+export async function computeGrid(
+	input: Sample[],
+	grid: GridSpec,
+	req: GridRequest,
+	onProgress: (fraction: number) => Promise<void> = async () => {}
+): Promise<GridComputation> {
+	const samples = mergeDuplicateSamples(
+		input.map((s) =>
+			s.sigma !== undefined && s.sigma > 0 ? s : { x: s.x, y: s.y, value: s.value }
+		)
+	);
+	const cells = grid.nx * grid.ny;
+	const value = new Float32Array(cells);
+	const sigma = req.method === 'kriging' ? new Float32Array(cells) : null;
+
+	let variogram: GridVariogram | null = null;
+	let empirical: VariogramPoint[] = [];
+	let crossValidation: CrossValidation;
+	const k =
+		req.method === 'kriging'
+			? (req.maxNeighbours ?? DEFAULT_KRIGING_NEIGHBOURS)
+			: req.maxNeighbours;
+	if (req.method === 'kriging') {
+		({ variogram, empirical } = chooseVariogram(samples, req));
+		await onProgress(0.05);
+		const res = crossValidationResiduals(samples, variogram, { maxNeighbours: k });
+		crossValidation = summarise(
+			res.map((r, i) => [samples[i].value, r.estimate]),
+			res.map((r) => r.variance)
+		);
+	} else {
+		crossValidation = idwCrossValidation(samples, req.power, k);
+	}
+	await onProgress(0.15);
+
+	for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
+		const rows = Math.min(STRIP_ROWS, grid.ny - j0);
+		const strip: GridSpec = { ...grid, y0: grid.y0 + j0 * grid.dy, ny: rows };
+		if (req.method === 'kriging') {
+			const r = ordinaryKrigingGrid(samples, strip, variogram!, { maxNeighbours: k });
+			value.set(r.value, j0 * grid.nx);
+			sigma!.set(r.sigma, j0 * grid.nx);
+		} else {
+			const r = inverseDistanceGrid(samples, strip, { power: req.power, maxNeighbours: k });
+			value.set(r, j0 * grid.nx);
+		}
+		await onProgress(0.15 + (0.8 * (j0 + rows)) / grid.ny);
+	}
+
+	let maskedCells = 0;
+	if (req.maskDistanceM !== undefined) {
+		const masked = maskByDistance(Float64Array.from(value), grid, samples, req.maskDistanceM);
+		for (let c = 0; c < cells; c++) {
+			if (Number.isNaN(masked[c])) {
+				value[c] = NaN;
+				if (sigma) sigma[c] = NaN;
+				maskedCells++;
+			}
+		}
+	}
+	await onProgress(1);
+	return {
+		value,
+		sigma,
+		variogram,
+		empirical,
+		crossValidation,
+		sitesUsed: samples.length,
+		maskedCells
+	};
+}

@@ -1,0 +1,241 @@
+import { error } from '@sveltejs/kit';
+import type PgBoss from 'pg-boss';
+import type { GridVariogram } from '$lib/grids/compute';
+import {
+	AT_DEPTH_ASSUMPTIONS,
+	DEFAULT_AT_DEPTH_M,
+	DEFAULT_ISOTHERM_C,
+	isothermDepthGrid,
+	temperatureAtDepthGrid
+} from '$lib/grids/at-depth';
+import { gridRequestSchema, requestProblem, type GridRequest } from '$lib/grids/request';
+import { notFound, type Viewer } from '../access';
+import { USER_RATE_RULES } from '../auth/rate-rules';
+import { countAttempt } from '../rate-limit';
+import type { Db } from '../db/client';
+import { enqueueGrid } from '../jobs/grid-queue';
+import {
+	deleteQueuedGrid,
+	findOrCreateGrid,
+	gridForViewer,
+	gridSources,
+	GridRequestError
+} from '../repositories/grids';
+import { cellsOf, planOf } from './cells';
+import { gridGeoTiff } from './geotiff';
+import { gridBoundsWgs84, gridContours, gridCsv, gridOverlayPng, sourceLine } from './outputs';
+
+/** Shown with every grid and in its downloads (ModelCaution says the same on pages). */
+export const GRID_CAUTION =
+	'Model estimate interpolated from the sites shown, assuming a stationary, isotropic field and the stated variogram; not a measurement. For drilling and resource decisions follow your local regulations and rely on a licensed professional.';
+
+/** Read and check a request body; 400 with one sentence when it is not a grid request. */
+export function parseGridRequest(body: unknown): GridRequest {
+	const parsed = gridRequestSchema.safeParse(body);
+	if (!parsed.success) error(400, `Bad grid request: ${requestProblem(parsed.error)}.`);
+	return parsed.data;
+}
+
+/**
+ * Find the cached grid for these inputs or queue a new one. `caller` keys the limit on new jobs
+ * (USER_RATE_RULES['grid-job']): the user id, or the client address of an anonymous caller.
+ */
+export async function requestGrid(
+	db: Db,
+	boss: PgBoss,
+	viewer: Viewer,
+	req: GridRequest,
+	caller: string
+): Promise<{ id: string; cached: boolean } | { refused: true; retryAfterS: number }> {
+	let found: { id: string; cached: boolean };
+	try {
+		found = await findOrCreateGrid(db, viewer, req);
+	} catch (err) {
+		if (err instanceof GridRequestError) error(400, `Bad grid request: ${err.message}.`);
+		throw err;
+	}
+	if (!found.cached) {
+		const verdict = await countAttempt(db, `grid|${caller}`, USER_RATE_RULES['grid-job']);
+		if (!verdict.allowed) {
+			await deleteQueuedGrid(db, found.id);
+			return { refused: true, retryAfterS: verdict.retryAfterS };
+		}
+		try {
+			await enqueueGrid(boss, found.id);
+		} catch (err) {
+			await deleteQueuedGrid(db, found.id);
+			throw err;
+		}
+	}
+	return found;
+}
+
+export const GRID_FILES = {
+	'heat-flow.tif': 'image/tiff',
+	'sigma.tif': 'image/tiff',
+	'grid.csv': 'text/csv; charset=utf-8',
+	'contours.geojson': 'application/geo+json',
+	'heat-flow.png': 'image/png',
+	'sigma.png': 'image/png',
+	'temperature-at-depth.tif': 'image/tiff',
+	'isotherm-depth.tif': 'image/tiff'
+} as const;
+export type GridFile = keyof typeof GRID_FILES;
+
+function variogramView(v: GridVariogram | null) {
+	if (!v) return null;
+	return {
+		model: v.model,
+		nuggetMWm2: v.nugget,
+		sillMWm2: v.nugget + v.partialSill,
+		rangeM: v.rangeM,
+		source: v.source,
+		note: v.note ?? null,
+		meanMeasurementVarianceMWm2: v.meanMeasurementVarianceMWm2
+	};
+}
+
+/** The status document of `GET /api/v1/grids/{id}`. */
+export async function gridStatus(db: Db, viewer: Viewer, id: string) {
+	const row = await gridForViewer(db, viewer, id);
+	const plan = planOf(row);
+	const req = row.request as unknown as GridRequest;
+	const result = (row.result ?? {}) as Record<string, unknown>;
+	const base = `/api/v1/grids/${row.id}`;
+	const done = row.status === 'done';
+	const hasSigma = done && row.sigmaCells !== null;
+	return {
+		id: row.id,
+		status: row.status,
+		progress: row.progress,
+		error: row.error,
+		request: req,
+		crs: { epsg: plan.crs.epsg, name: plan.crs.name },
+		grid: plan.grid,
+		boundsWgs84: gridBoundsWgs84(plan),
+		sitesUsed: done ? result.sitesUsed : (row.samples as unknown[]).length,
+		maskedCells: result.maskedCells ?? null,
+		valueRangeMWm2: result.valueRange ?? null,
+		sigmaRangeMWm2: result.sigmaRange ?? null,
+		variogram: variogramView((result.variogram as GridVariogram | null) ?? null),
+		measurementError: result.measurementError ?? null,
+		empiricalVariogram: result.empirical ?? [],
+		crossValidation: result.crossValidation ?? null,
+		links: done
+			? {
+					geotiff: `${base}/heat-flow.tif`,
+					sigmaGeotiff: hasSigma ? `${base}/sigma.tif` : null,
+					csv: `${base}/grid.csv`,
+					png: `${base}/heat-flow.png`,
+					sigmaPng: hasSigma ? `${base}/sigma.png` : null,
+					contours: `${base}/contours.geojson`,
+					temperatureAtDepth: `${base}/temperature-at-depth.tif?depthM=${DEFAULT_AT_DEPTH_M}`,
+					isothermDepth: `${base}/isotherm-depth.tif?temperatureC=${DEFAULT_ISOTHERM_C}`
+				}
+			: null,
+		caution: GRID_CAUTION,
+		atDepthAssumptions: AT_DEPTH_ASSUMPTIONS,
+		createdAt: row.createdAt,
+		finishedAt: row.finishedAt
+	};
+}
+
+/** A number query parameter within [min, max], or its default; 400 otherwise. */
+function numberParam(
+	params: URLSearchParams,
+	name: string,
+	fallback: number,
+	min: number,
+	max: number
+) {
+	const raw = params.get(name);
+	if (raw === null || raw === '') return fallback;
+	const v = Number(raw);
+	if (!Number.isFinite(v) || v < min || v > max)
+		error(400, `${name} must be a number from ${min} to ${max}; got ${raw.slice(0, 20)}.`);
+	return v;
+}
+
+/** One download of a finished grid, or the shared 404 (unknown, hidden, unfinished, no σ). */
+export async function gridFile(
+	db: Db,
+	viewer: Viewer,
+	id: string,
+	name: string,
+	params: URLSearchParams = new URLSearchParams()
+): Promise<{ body: Buffer | string; type: string; fileName: string }> {
+	if (!(name in GRID_FILES)) notFound();
+	const file = name as GridFile;
+	const row = await gridForViewer(db, viewer, id);
+	if (row.status !== 'done') notFound();
+	const plan = planOf(row);
+	const value = cellsOf(row.valueCells)!;
+	const sigma = cellsOf(row.sigmaCells);
+	const wantsSigma = file.startsWith('sigma');
+	if (wantsSigma && !sigma) notFound();
+	const req = row.request as unknown as GridRequest;
+	const sources = await gridSources(db, row.datasetIds);
+	const fileName = `thermalith-grid-${row.id.slice(0, 8)}-${file}`;
+	const type = GRID_FILES[file];
+	const what = `${req.method === 'kriging' ? 'Ordinary kriging' : 'IDW'} heat-flow ${wantsSigma ? 'standard error (1 sigma)' : 'estimate'}, mW/m2, EPSG:${plan.crs.epsg}`;
+	switch (file) {
+		case 'heat-flow.tif':
+		case 'sigma.tif': {
+			const cite = sources.map((s) => `${s.title} (${s.licence})`).join('; ');
+			const description = `Thermalith grid ${row.id}. ${what}. Model estimate. Sources: ${cite}. Full citations: ${`/api/v1/grids/${row.id}/grid.csv`}`;
+			return {
+				body: await gridGeoTiff(wantsSigma ? sigma! : value, plan, description),
+				type,
+				fileName
+			};
+		}
+		case 'grid.csv':
+			return {
+				body: gridCsv(
+					plan,
+					value,
+					sigma,
+					[`Thermalith grid ${row.id}: ${what}`, GRID_CAUTION],
+					sources
+				),
+				type,
+				fileName
+			};
+		case 'contours.geojson': {
+			const fc = gridContours(plan, value);
+			return {
+				body: JSON.stringify({
+					...fc,
+					description: `${what}; filled bands, heatFlowMinMWm2 = lower bound. ${GRID_CAUTION}`,
+					sources: sources.map(sourceLine)
+				}),
+				type,
+				fileName
+			};
+		}
+		case 'temperature-at-depth.tif': {
+			const depthM = numberParam(params, 'depthM', DEFAULT_AT_DEPTH_M, 100, 30_000);
+			const t = temperatureAtDepthGrid(value, sigma, depthM);
+			const description = `Thermalith grid ${row.id}. Temperature (deg C) at ${depthM} m; bands P10, P50, P90. Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
+			return { body: await gridGeoTiff([t.p10, t.p50, t.p90], plan, description), type, fileName };
+		}
+		case 'isotherm-depth.tif': {
+			const isothermC = numberParam(params, 'temperatureC', DEFAULT_ISOTHERM_C, 20, 1000);
+			const d = isothermDepthGrid(value, sigma, isothermC);
+			const description = `Thermalith grid ${row.id}. Depth (m) of ${isothermC} deg C; bands P10, P50, P90 (P10 shallowest). Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
+			return { body: await gridGeoTiff([d.p10, d.p50, d.p90], plan, description), type, fileName };
+		}
+		case 'heat-flow.png':
+		case 'sigma.png':
+			return {
+				body: await gridOverlayPng(
+					plan,
+					wantsSigma ? sigma! : value,
+					wantsSigma ? 'sigma' : 'value',
+					gridBoundsWgs84(plan)
+				),
+				type,
+				fileName
+			};
+	}
+}

@@ -1,0 +1,33 @@
+import { json } from '@sveltejs/kit';
+import { clientAddress } from '$lib/server/auth/client-address';
+import { config } from '$lib/server/config';
+import { getDb } from '$lib/server/db';
+import { parseGridRequest, requestGrid } from '$lib/server/grids/service';
+import { jobs } from '$lib/server/jobs/boss';
+import type { RequestHandler } from './$types';
+
+/**
+ * Request a heat-flow grid of the sites the caller may see (JSON body: $lib/grids/request.ts).
+ * 202 with the grid's id and its status address in Location; an identical request over the same
+ * visible data answers with the grid already made or in progress.
+ */
+export const POST: RequestHandler = async (event) => {
+	let body: unknown;
+	try {
+		body = await event.request.json();
+	} catch {
+		return json({ message: 'Bad grid request: the body must be JSON.' }, { status: 400 });
+	}
+	const req = parseGridRequest(body);
+	const boss = await jobs(config().DATABASE_URL);
+	const caller = event.locals.viewer.userId ?? `address|${clientAddress(event.request)}`;
+	const found = await requestGrid(getDb(), boss, event.locals.viewer, req, caller);
+	if ('refused' in found)
+		return json(
+			{ message: `Too many new grids; try again in ${found.retryAfterS} s.` },
+			{ status: 429, headers: { 'retry-after': String(found.retryAfterS) } }
+		);
+	const { id, cached } = found;
+	const location = `/api/v1/grids/${id}`;
+	return json({ id, cached, location }, { status: 202, headers: { location } });
+};
