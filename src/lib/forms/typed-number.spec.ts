@@ -45,7 +45,9 @@ describe('readTypedNumber', () => {
 
 describe('requirementInWords', () => {
 	it('rewrites comparison signs and names the entered value', () => {
-		expect(requirementInWords('must be > 0', -5)).toBe('must be greater than 0 (you entered \u22125)');
+		expect(requirementInWords('must be > 0', -5)).toBe(
+			'must be greater than 0 (you entered \u22125)'
+		);
 		expect(requirementInWords('must be >= 0; got -1', -1)).toBe(
 			'must be at least 0 (you entered \u22121)'
 		);
