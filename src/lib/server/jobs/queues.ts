@@ -8,11 +8,13 @@ import type PgBoss from 'pg-boss';
 export const QUEUES = {
 	mail: { name: 'mail', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 120 },
 	// Periodic clean-up (expired pending uploads); a missed run is simply done by the next one.
-	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 }
+	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 },
+	// Embargo release (embargo-release.ts): idempotent, so a failed or missed run is redone by the next.
+	embargoRelease: { name: 'embargo-release', retryLimit: 2, retryDelay: 60, expireInSeconds: 600 }
 } as const satisfies Record<string, PgBoss.Queue>;
 
 /** Cron schedules (pg-boss keeps one per queue, whichever instance sets it; UTC). */
-export const SCHEDULES = { housekeeping: '17 * * * *' } as const;
+export const SCHEDULES = { housekeeping: '17 * * * *', embargoRelease: '2 * * * *' } as const;
 
 /** Create every queue (pg-boss 10 needs a queue before its first job); safe to repeat. */
 export async function ensureQueues(boss: PgBoss, queues: PgBoss.Queue[] = Object.values(QUEUES)) {
