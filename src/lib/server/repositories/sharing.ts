@@ -62,17 +62,20 @@ export async function catalogueEntry(db: Db, viewer: Viewer, id: string) {
 		.where(and(eq(dataset.id, id), catalogueEntries()));
 	if (!row) notFound();
 	const embargoed = row.visibility === 'embargoed';
-	// Cell centres from the floor of each coordinate: a site is only known to lie in its cell.
-	const cellLon = sql<number>`(floor(ST_X(${site.location}) / ${COARSE_CELL_DEG}) + 0.5) * ${COARSE_CELL_DEG}`;
-	const cellLat = sql<number>`(floor(ST_Y(${site.location}) / ${COARSE_CELL_DEG}) + 0.5) * ${COARSE_CELL_DEG}`;
+	// Cell indexes from the floor of each coordinate (a site is only known to lie in its cell); the
+	// cell size is our constant, written into the SQL so GROUP BY sees one expression.
+	const perDegree = sql.raw(String(Math.round(1 / COARSE_CELL_DEG)));
+	const cellX = sql<number>`floor(ST_X(${site.location}) * ${perDegree})::int`;
+	const cellY = sql<number>`floor(ST_Y(${site.location}) * ${perDegree})::int`;
 	const cells = embargoed
 		? await db
-				.select({ lon: cellLon, lat: cellLat, sites: count() })
+				.select({ x: cellX, y: cellY, sites: count() })
 				.from(site)
 				.where(eq(site.datasetId, id))
-				.groupBy(cellLon, cellLat)
-				.orderBy(cellLat, cellLon)
+				.groupBy(cellX, cellY)
+				.orderBy(cellY, cellX)
 		: [];
+	const centre = (index: number) => Math.round((index + 0.5) * COARSE_CELL_DEG * 100) / 100;
 	const myRequest = viewer.userId
 		? ((
 				await db
@@ -91,8 +94,8 @@ export async function catalogueEntry(db: Db, viewer: Viewer, id: string) {
 		dataset: row,
 		siteCount: embargoed ? cells.reduce((n, c) => n + Number(c.sites), 0) : null,
 		cells: cells.map((c) => ({
-			lon: Math.round(Number(c.lon) * 100) / 100,
-			lat: Math.round(Number(c.lat) * 100) / 100,
+			lon: centre(Number(c.x)),
+			lat: centre(Number(c.y)),
 			sites: Number(c.sites)
 		})),
 		myRequest
@@ -345,7 +348,7 @@ export async function grantAccess(
 
 /** Revoke a grant in force (kept as a record with revokedAt); 403 if it was revoked already. */
 export async function revokeGrant(db: Db, viewer: Viewer, found: VisibleDataset, grantId: string) {
-	if (!found.can.revoke) error(403, SHARING_REFUSALS.revokeRole);
+	requireShareable(found, 'revoke');
 	requireUuid(grantId);
 	const d = found.dataset;
 	const revoked = await db.transaction(async (tx) => {
