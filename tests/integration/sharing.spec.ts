@@ -227,6 +227,12 @@ describe('access requests and grants', () => {
 			.where(eq(accessRequest.datasetId, d.id));
 		// The curator sees the queue on the dataset page.
 		expect(await (await curator.get(`/datasets/${d.id}`)).text()).toContain(PURPOSE);
+		// … and on the organisation page; a contributor, who may not answer, sees no queue.
+		const orgPage = await (await curator.get('/organisations/korvald-survey')).text();
+		expect(orgPage.slice(orgPage.indexOf('pending-access-requests'))).toContain(d.id);
+		expect(await (await contributor.get('/organisations/korvald-survey')).text()).not.toContain(
+			'pending-access-requests'
+		);
 		const lastDay = day(0);
 		const approved = await curator.post(`/datasets/${d.id}?/approve`, {
 			requestId: request.id,
