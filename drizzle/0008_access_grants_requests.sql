@@ -1,3 +1,4 @@
+CREATE TYPE "public"."access_request_status" AS ENUM('pending', 'approved', 'declined');--> statement-breakpoint
 CREATE TABLE "access_grant" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"dataset_id" uuid NOT NULL,
@@ -17,12 +18,11 @@ CREATE TABLE "access_request" (
 	"dataset_id" uuid NOT NULL,
 	"requester_id" text NOT NULL,
 	"purpose" text NOT NULL,
-	"status" text DEFAULT 'pending' NOT NULL,
+	"status" "access_request_status" DEFAULT 'pending' NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"decided_by" text,
 	"decided_at" timestamp with time zone,
-	"reason" text,
-	CONSTRAINT "access_request_status" CHECK ("status" IN ('pending', 'approved', 'declined'))
+	"reason" text
 );
 --> statement-breakpoint
 ALTER TABLE "access_grant" ADD CONSTRAINT "access_grant_dataset_id_dataset_id_fk" FOREIGN KEY ("dataset_id") REFERENCES "public"."dataset"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint

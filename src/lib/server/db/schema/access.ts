@@ -3,6 +3,7 @@ import {
 	check,
 	date,
 	index,
+	pgEnum,
 	pgTable,
 	text,
 	timestamp,
@@ -46,6 +47,7 @@ export const accessGrant = pgTable(
 );
 
 export const ACCESS_REQUEST_STATES = ['pending', 'approved', 'declined'] as const;
+export const accessRequestStatus = pgEnum('access_request_status', ACCESS_REQUEST_STATES);
 
 /** A signed-in user's request for access to a dataset, with their purpose; answered once. */
 export const accessRequest = pgTable(
@@ -59,7 +61,7 @@ export const accessRequest = pgTable(
 			.notNull()
 			.references(() => user.id, { onDelete: 'cascade' }),
 		purpose: text().notNull(),
-		status: text({ enum: ACCESS_REQUEST_STATES }).notNull().default('pending'),
+		status: accessRequestStatus().notNull().default('pending'),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 		decidedBy: text(),
 		decidedAt: timestamp({ withTimezone: true }),
@@ -71,8 +73,7 @@ export const accessRequest = pgTable(
 		// One open request per person and dataset.
 		uniqueIndex('access_request_one_pending')
 			.on(t.datasetId, t.requesterId)
-			.where(sql`${t.status} = 'pending'`),
-		check('access_request_status', sql`${t.status} IN ('pending', 'approved', 'declined')`)
+			.where(sql`${t.status} = 'pending'`)
 	]
 );
 
