@@ -15,8 +15,9 @@ import {
 import { failStaleImports } from '$lib/server/imports/stale';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
 import { workGridQueue } from '$lib/server/jobs/grid-queue';
+import { startEmbargoRelease } from '$lib/server/jobs/embargo-release';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
-import { closeMailer, startMailWorker } from '$lib/server/mail';
+import { closeMailer, sendMail, startMailWorker } from '$lib/server/mail';
 import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
 import { crossOriginRefusal } from '$lib/server/origin-check';
@@ -33,11 +34,19 @@ export const init: ServerInit = async () => {
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
-		// Queued jobs (mail, the hourly housekeeping) are taken by this process; a queue that is not reachable yet is retried
+		// Queued jobs (mail, the hourly housekeeping and embargo release) are taken by this process; a queue that is not reachable yet is retried
 		// by pg-boss once it is, and must not keep the app from starting.
 		startMailWorker()
 			.then(async () => startHousekeeping(await jobs(config().DATABASE_URL), getDb()))
 			.then(async () => workGridQueue(await jobs(config().DATABASE_URL), getDb()))
+			.then(async () =>
+				startEmbargoRelease(
+					await jobs(config().DATABASE_URL),
+					getDb(),
+					sendMail,
+					config().ORIGIN ?? 'http://127.0.0.1:3000'
+				)
+			)
 			.catch((err) => console.warn('job workers not started:', err.message));
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.

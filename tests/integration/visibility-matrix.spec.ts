@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { NOT_FOUND_MESSAGE } from '../../src/lib/server/access/not-found';
 import { createDb } from '../../src/lib/server/db/client';
 import {
+	accessGrant,
 	attachment,
 	dataset,
 	importBatch,
@@ -68,10 +69,16 @@ const CASES = {
 type CaseName = keyof typeof CASES;
 const caseNames = Object.keys(CASES) as CaseName[];
 
-/** Viewer kinds and the demo account of each; members are those of the datasets' organisation. */
+/**
+ * Viewer kinds and the demo account of each; members are those of the datasets' organisation.
+ * Grantees are new accounts (signed up here) holding a grant on every case: in force for
+ * `grantee`, with its last day yesterday for `expiredGrantee`.
+ */
 const KINDS = {
 	anonymous: null,
 	outsider: 'owner@lindmark-thermics.example',
+	grantee: `grantee-${run}@example.test`,
+	expiredGrantee: `expired-grantee-${run}@example.test`,
 	orgViewer: 'viewer@korvald-survey.example',
 	contributor: 'contributor@korvald-survey.example',
 	curator: 'curator@korvald-survey.example',
@@ -100,7 +107,15 @@ const TRANSITIONS: Record<string, Record<string, Kind[]>> = {
 	retire: { published: REVIEWERS }
 };
 
-const sees = (k: Kind, c: CaseName) => CASES[c].everyone || MEMBERS.includes(k);
+/**
+ * Catalogue entries: published (or retired) restricted and embargoed datasets show their summary
+ * to anyone at /datasets/[id]/about; grants work on them only, and only while in force.
+ */
+const isEntry = (c: CaseName) =>
+	['published', 'retired'].includes(CASES[c].status) &&
+	['restricted', 'embargoed'].includes(CASES[c].visibility);
+const sees = (k: Kind, c: CaseName) =>
+	CASES[c].everyone || MEMBERS.includes(k) || (k === 'grantee' && isEntry(c));
 const changes = (k: Kind, c: CaseName) => CHANGERS[CASES[c].status].includes(k);
 
 const { db, client: sql } = createDb(testEnv.databaseUrl(), { max: 2 });
@@ -111,12 +126,29 @@ const THUMB_BYTES = Buffer.from('RIFF-matrix-thumb');
 const clients = {} as Record<Kind, Client>;
 const ids = {} as Record<CaseName, { dataset: string; site: string; file: string; batch: string }>;
 const title = (c: CaseName) => `Matrix ${c} ${run}`;
+const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
 const BOX = { west: 100, south: -60, east: 101, north: -59 };
 
+const GRANTEE_PASSWORD = 'matrix-grantee-password-1';
+const GRANTEES: Kind[] = ['grantee', 'expiredGrantee'];
+const granteeIds = {} as Record<Kind, string>;
+
 beforeAll(async () => {
+	for (const k of GRANTEES) {
+		const res = await new Client().post('/sign-up', {
+			name: `Matrix ${k}`,
+			email: KINDS[k]!,
+			password: GRANTEE_PASSWORD,
+			confirm: GRANTEE_PASSWORD
+		});
+		expect(res.status).toBe(303);
+		const [u] = await db.select({ id: user.id }).from(user).where(eq(user.email, KINDS[k]!));
+		granteeIds[k] = u.id;
+	}
 	for (const k of kinds) {
 		const email = KINDS[k];
-		clients[k] = email ? await signIn(email, DEMO_PASSWORD) : new Client();
+		const password = GRANTEES.includes(k) ? GRANTEE_PASSWORD : DEMO_PASSWORD;
+		clients[k] = email ? await signIn(email, password) : new Client();
 	}
 	const [ownerRow] = await db.select({ id: user.id }).from(user).where(eq(user.email, KINDS.owner));
 	for (const [i, c] of caseNames.entries()) {
@@ -135,7 +167,7 @@ beforeAll(async () => {
 			.values({
 				datasetId: d.id,
 				code: `MX-${i}-${run}`,
-				location: { lon: 100.1 + i * 0.05, lat: -59.5 },
+				location: { lon: 100.13 + i * 0.05, lat: -59.47 },
 				heatFlowMWm2: 70
 			})
 			.returning({ id: site.id });
@@ -173,6 +205,11 @@ beforeAll(async () => {
 			})
 			.returning({ id: importBatch.id });
 		ids[c] = { dataset: d.id, site: s.id, file: f.id, batch: b.id };
+		// A grant on every case, so the rule must ignore it where it does not apply.
+		await db.insert(accessGrant).values([
+			{ datasetId: d.id, userId: granteeIds.grantee },
+			{ datasetId: d.id, userId: granteeIds.expiredGrantee, expiresOn: yesterday }
+		]);
 	}
 });
 
@@ -351,9 +388,13 @@ const ROUTES: Record<string, Row> = {
 	'/(app)/datasets/[id=uuid]': {
 		checks: [
 			{
-				name: 'dataset page',
+				name: 'dataset page (a catalogue entry sends to its summary)',
 				run: async (k, c) => {
 					const res = await get(k, `/datasets/${ids[c].dataset}`);
+					if (!sees(k, c) && isEntry(c)) {
+						expect(res.status).toBe(303);
+						return expect(res.headers.get('location')).toBe(`/datasets/${ids[c].dataset}/about`);
+					}
 					if (!sees(k, c)) return expectHidden(res);
 					expect(res.status).toBe(200);
 					expect(await res.text()).toContain(title(c));
@@ -384,10 +425,73 @@ const ROUTES: Record<string, Row> = {
 				}
 			},
 			{
+				name: 'sharing actions (?/approve, ?/decline, ?/grant, ?/revoke) that must be refused',
+				run: async (k, c) => {
+					const curates = ['curator', 'owner'].includes(k);
+					// Curators on a catalogue entry would succeed: sharing.spec.ts runs those.
+					if (curates && isEntry(c)) return expect(curates).toBe(true);
+					const unknown = crypto.randomUUID();
+					const forms: Record<string, Record<string, string>> = {
+						approve: { requestId: unknown },
+						decline: { requestId: unknown, reason: 'matrix' },
+						grant: { email: KINDS.outsider },
+						revoke: { grantId: unknown }
+					};
+					for (const [name, fields] of Object.entries(forms)) {
+						const res = await clients[k].post(`/datasets/${ids[c].dataset}?/${name}`, fields);
+						expect(writeStatus(k, c, false, 200), name).toContain(res.status);
+					}
+					const grants = await db
+						.select()
+						.from(accessGrant)
+						.where(eq(accessGrant.datasetId, ids[c].dataset));
+					expect(grants).toHaveLength(2);
+				}
+			},
+			{
 				name: 'edit metadata (?/update, empty form)',
 				run: async (k, c) => {
 					const res = await clients[k].post(`/datasets/${ids[c].dataset}?/update`, {});
 					expect(writeStatus(k, c, changes(k, c), 400)).toContain(res.status);
+				}
+			}
+		]
+	},
+	'/(app)/datasets/[id=uuid]/about': {
+		checks: [
+			{
+				name: 'catalogue entry: summary only, never values, names, codes or files',
+				run: async (k, c) => {
+					const res = await get(k, `/datasets/${ids[c].dataset}/about`);
+					if (sees(k, c)) {
+						expect(res.status).toBe(303);
+						return expect(res.headers.get('location')).toBe(`/datasets/${ids[c].dataset}`);
+					}
+					if (!isEntry(c)) return expectHidden(res);
+					expect(res.status).toBe(200);
+					const body = await res.text();
+					expect(body).toContain(title(c));
+					expect(body).not.toContain(`MX-${caseNames.indexOf(c)}-${run}`);
+					expect(body).not.toContain(ids[c].file);
+					expect(body).not.toContain(`matrix-${caseNames.indexOf(c)}-${run}.png`);
+					// Under embargo the site count and the 0.1° cell (centre -59.45) are public, never
+					// the position itself (-59.47).
+					const embargoed = CASES[c].visibility === 'embargoed';
+					expect(body).not.toContain('-59.47');
+					expect(body.includes('-59.45')).toBe(embargoed);
+					expect(body.includes('data-testid="site-count"')).toBe(embargoed);
+				}
+			},
+			{
+				name: 'ask for access (default action)',
+				run: async (k, c) => {
+					const res = await clients[k].post(`/datasets/${ids[c].dataset}/about`, {
+						purpose: 'A regional heat-flow compilation for the matrix test.'
+					});
+					if (k === 'anonymous') return expect(res.status).toBe(401);
+					if (sees(k, c)) return expect(res.status).toBe(403);
+					if (!isEntry(c)) return expectHidden(res);
+					expect(res.status).toBe(200);
 				}
 			}
 		]
@@ -697,6 +801,15 @@ function routeIds(): string[] {
 /** Home-page counts a viewer should see, from the database and the tables above. */
 async function expectedCounts(k: Kind) {
 	const email = KINDS[k];
+	const granted = (
+		await db
+			.select({ datasetId: accessGrant.datasetId, expiresOn: accessGrant.expiresOn })
+			.from(accessGrant)
+			.innerJoin(user, eq(accessGrant.userId, user.id))
+			.where(eq(user.email, email ?? ''))
+	)
+		.filter((g) => g.expiresOn === null || g.expiresOn >= new Date().toISOString().slice(0, 10))
+		.map((g) => g.datasetId);
 	const myOrgs = email
 		? (
 				await db
@@ -711,6 +824,9 @@ async function expectedCounts(k: Kind) {
 	const visible = all.filter(
 		(d) =>
 			myOrgs.includes(d.organisationId) ||
+			(['published', 'retired'].includes(d.status) &&
+				['restricted', 'embargoed'].includes(d.visibility) &&
+				granted.includes(d.id)) ||
 			(['published', 'retired'].includes(d.status) &&
 				(d.visibility === 'public' ||
 					(d.visibility === 'embargoed' && d.embargoUntil !== null && d.embargoUntil <= today)))

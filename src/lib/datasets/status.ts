@@ -30,10 +30,10 @@ export function audienceSentence(d: {
 			return 'Anyone can see it.';
 		case 'embargoed':
 			return d.embargoUntil
-				? `Members only until ${d.embargoUntil}, then anyone.`
-				: 'Members only until its release date.';
+				? `Members and those granted access only until ${d.embargoUntil}, then anyone; until then anyone sees its summary and coarse locations.`
+				: 'Members and those granted access only until its release date.';
 		case 'restricted':
-			return 'Only members of the organisation can see it (access grants come later).';
+			return 'Only members of the organisation and those granted access can see it.';
 		default:
 			return 'Only members of the organisation can see it.';
 	}

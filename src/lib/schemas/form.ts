@@ -5,6 +5,14 @@ export type FieldErrors = Record<string, string>;
 export type FormResult<T> =
 	{ ok: true; data: T } | { ok: false; errors: FieldErrors; values: Record<string, string> };
 
+/** The submitted text fields (never passwords), to show a refused form again as it was. */
+export function formValues(form: FormData): Record<string, string> {
+	const values: Record<string, string> = {};
+	for (const [key, value] of form.entries())
+		if (typeof value === 'string' && !/password/i.test(key)) values[key] = value;
+	return values;
+}
+
 /**
  * Validate a submitted form with a zod schema. On failure, return one message per field and the
  * submitted values (never passwords) so the page can show them again.

@@ -73,6 +73,47 @@ export const mailTemplates = {
 			{ label: 'Open the dataset', url },
 			'You receive this because you work on this dataset or review datasets for the organisation.'
 		),
+	/** The release job made an embargoed dataset public (jobs/embargo-release.ts). */
+	embargoReleased: (
+		d: { title: string; organisationName: string; embargoUntil: string | null },
+		url: string
+	) =>
+		compose(
+			`"${d.title}" is now public`,
+			`The embargo on the dataset "${d.title}" of ${d.organisationName} ended${d.embargoUntil ? ` on ${d.embargoUntil}` : ''}. Thermalith released it: anyone can now see its sites, values and files.`,
+			{ label: 'Open the dataset', url },
+			'You receive this because you own this dataset or its organisation.'
+		),
+	/** Someone asked for access (to the curators and owners of its organisation). */
+	accessRequested: (d: { title: string }, requester: string, purpose: string, url: string) =>
+		compose(
+			`Access requested to "${d.title}"`,
+			`${requester} asked for access to the dataset "${d.title}". Their purpose: ${purpose}`,
+			{ label: 'Answer the request', url },
+			'You receive this because you answer access requests for the organisation.'
+		),
+	/** Access was granted (on request or directly) to a person or an organisation. */
+	accessGranted: (d: { title: string }, expiresOn: string | null, url: string) =>
+		compose(
+			`Access granted to "${d.title}"`,
+			`You now have access to the dataset "${d.title}"${expiresOn ? ` until ${expiresOn} (inclusive)` : ''}: its sites, values and files are open to you on Thermalith.`,
+			{ label: 'Open the dataset', url },
+			'You receive this because a curator of the dataset granted you or your organisation access.'
+		),
+	accessDeclined: (d: { title: string }, reason: string, url: string) =>
+		compose(
+			`Access request to "${d.title}" declined`,
+			`Your request for access to the dataset "${d.title}" was declined. The curator's reason: ${reason}`,
+			{ label: 'See the dataset', url },
+			'You receive this because you asked for access to this dataset.'
+		),
+	accessRevoked: (d: { title: string }, url: string) =>
+		compose(
+			`Access to "${d.title}" revoked`,
+			`Your access to the dataset "${d.title}" was revoked by its curators.`,
+			{ label: 'See the dataset', url },
+			'You receive this because you had access to this dataset.'
+		),
 	invitation: (organisation: string, inviter: string, role: string, url: string) =>
 		compose(
 			`Invitation to join ${organisation}`,

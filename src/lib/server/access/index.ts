@@ -4,7 +4,15 @@
  * something reads (not-found.ts). Routes never decide this themselves.
  */
 export { ANONYMOUS, type Viewer } from './viewer';
-export { organisationsWhere, visibleDatasets, visibleImports, visibleOnMaps } from './visibility';
+export {
+	catalogueEntries,
+	embargoPassed,
+	grantInForce,
+	organisationsWhere,
+	visibleDatasets,
+	visibleImports,
+	visibleOnMaps
+} from './visibility';
 export { datasetRights, type DatasetRights, type DatasetState } from './rights';
 export {
 	PAST,
@@ -14,3 +22,4 @@ export {
 	type TransitionName
 } from './lifecycle';
 export { NOT_FOUND_MESSAGE, notFound, requireUuid } from './not-found';
+export { SHARING_REFUSALS, embargoDateRefusal, expiryRefusal, shareable } from './sharing';

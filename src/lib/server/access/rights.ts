@@ -31,7 +31,11 @@ export function datasetRights(viewer: Viewer, d: DatasetState) {
 		// Uploading (sites, logs, files) also needs a confirmed e-mail address.
 		upload: roleMayUpload && viewer.emailVerified,
 		/** Delete any file of the dataset; without it only one's own uploads. */
-		deleteAnyFile: roleCan(role, 'dataset', 'delete')
+		deleteAnyFile: roleCan(role, 'dataset', 'delete'),
+		/** Share it outside the organisation: answer requests, grant and revoke (sharing.ts). */
+		answerRequests: roleCan(role, 'access', 'answer-request'),
+		grant: roleCan(role, 'access', 'grant'),
+		revoke: roleCan(role, 'access', 'revoke')
 	};
 	const uploadRefusal = can.upload
 		? null

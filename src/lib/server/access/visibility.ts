@@ -1,5 +1,6 @@
 import { and, eq, inArray, lte, ne, or, sql, type SQL } from 'drizzle-orm';
-import { dataset } from '../db/schema';
+import { utcDay } from '../clock';
+import { accessGrant, dataset } from '../db/schema';
 import { roleCan, type Action, type Resource } from '../permissions';
 import type { Viewer } from './viewer';
 
@@ -14,18 +15,47 @@ export function organisationsWhere<R extends Resource>(
 		.map(([id]) => id);
 }
 
+/** States in which a dataset is out (published, or retired and still citable). */
+const OUT = ['published', 'retired'] as const;
+
+/**
+ * An embargo whose release date (UTC) is `at`'s day or earlier. THE condition shared by the rule
+ * below and the release job (jobs/embargo-release.ts), so both agree on the day.
+ */
+export function embargoPassed(at: Date): SQL {
+	return and(eq(dataset.visibility, 'embargoed'), lte(dataset.embargoUntil, utcDay(at)))!;
+}
+
 /**
  * What anyone may see: datasets that were published (published or retired, which stays citable)
  * and are public, or embargoed with the release date passed. Restricted and private datasets are
  * not released to the public.
  */
-function released(): SQL {
+function released(at: Date): SQL {
 	return and(
-		inArray(dataset.status, ['published', 'retired']),
-		or(
-			eq(dataset.visibility, 'public'),
-			and(eq(dataset.visibility, 'embargoed'), lte(dataset.embargoUntil, sql`current_date`))
-		)
+		inArray(dataset.status, OUT),
+		or(eq(dataset.visibility, 'public'), embargoPassed(at))
+	)!;
+}
+
+/**
+ * A grant in force for this viewer on a published restricted or embargoed dataset: to them or to
+ * an organisation they belong to, not revoked, and not expired (expiresOn is the last day, UTC),
+ * so an expired grant stops working without anyone acting. Private datasets ignore grants.
+ */
+export function grantInForce(viewer: Viewer, at: Date = new Date()): SQL {
+	if (!viewer.userId) return sql`false`;
+	const orgs = organisationsWhere(viewer, 'dataset', 'read-private');
+	const grantee = orgs.length
+		? or(eq(accessGrant.userId, viewer.userId), inArray(accessGrant.organisationId, orgs))!
+		: eq(accessGrant.userId, viewer.userId);
+	return and(
+		inArray(dataset.status, OUT),
+		inArray(dataset.visibility, ['embargoed', 'restricted']),
+		sql`exists (select 1 from ${accessGrant} where ${accessGrant.datasetId} = ${dataset.id}
+			and ${accessGrant.revokedAt} is null
+			and (${accessGrant.expiresOn} is null or ${accessGrant.expiresOn} >= ${utcDay(at)})
+			and ${grantee})`
 	)!;
 }
 
@@ -34,20 +64,36 @@ function released(): SQL {
  * exports a viewer may see. Every query that returns any of them joins `dataset` and adds this
  * condition; do not write another.
  * - Anyone: released datasets (above).
+ * - Grantees: restricted and embargoed datasets they hold a grant in force for (above).
  * - Members whose role has `dataset:read-private` (every organisation role): all datasets of their
  *   organisation, whatever the status or visibility.
  * - Platform administrators: nothing more than their memberships give (README.md
  *   here).
+ * `at` is the moment asked about (default now): embargo release and grant expiry depend on it.
  */
-export function visibleDatasets(viewer: Viewer): SQL {
+export function visibleDatasets(viewer: Viewer, at: Date = new Date()): SQL {
 	const own = organisationsWhere(viewer, 'dataset', 'read-private');
-	if (own.length === 0) return released();
-	return or(released(), inArray(dataset.organisationId, own))!;
+	const shared = or(released(at), grantInForce(viewer, at))!;
+	if (own.length === 0) return shared;
+	return or(shared, inArray(dataset.organisationId, own))!;
+}
+
+/**
+ * The catalogue entry of a dataset the viewer may not see whole: published (or retired)
+ * restricted and embargoed datasets show their title, abstract, licence and organisation to
+ * anyone, so people can cite them and ask for access; embargoed ones also their site count and
+ * locations rounded to 0.1° cells (repositories/access.ts). Never values, names, codes or files.
+ */
+export function catalogueEntries(): SQL {
+	return and(
+		inArray(dataset.status, OUT),
+		inArray(dataset.visibility, ['embargoed', 'restricted'])
+	)!;
 }
 
 /** Maps and map queries: visible datasets, without retired ones (still readable on their page). */
-export function visibleOnMaps(viewer: Viewer): SQL {
-	return and(visibleDatasets(viewer), ne(dataset.status, 'retired'))!;
+export function visibleOnMaps(viewer: Viewer, at: Date = new Date()): SQL {
+	return and(visibleDatasets(viewer, at), ne(dataset.status, 'retired'))!;
 }
 
 /**

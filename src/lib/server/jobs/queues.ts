@@ -11,11 +11,13 @@ export const QUEUES = {
 	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 },
 	// Heat-flow grids: a worker that dies mid-job (killed, restarted) leaves its job active until
 	// it expires, then pg-boss hands it to a worker again; the job starts the grid afresh.
-	grid: { name: 'grid', retryLimit: 3, retryDelay: 5, expireInSeconds: 900 }
+	grid: { name: 'grid', retryLimit: 3, retryDelay: 5, expireInSeconds: 900 },
+	// Embargo release (embargo-release.ts): idempotent, so a failed or missed run is redone by the next.
+	embargoRelease: { name: 'embargo-release', retryLimit: 2, retryDelay: 60, expireInSeconds: 600 }
 } as const satisfies Record<string, PgBoss.Queue>;
 
 /** Cron schedules (pg-boss keeps one per queue, whichever instance sets it; UTC). */
-export const SCHEDULES = { housekeeping: '17 * * * *' } as const;
+export const SCHEDULES = { housekeeping: '17 * * * *', embargoRelease: '2 * * * *' } as const;
 
 /** Create every queue (pg-boss 10 needs a queue before its first job); safe to repeat. */
 export async function ensureQueues(boss: PgBoss, queues: PgBoss.Queue[] = Object.values(QUEUES)) {

@@ -15,7 +15,7 @@ export const auditEvent = pgTable(
 		/** Name and address at the time, so the record still reads after the account changes. */
 		actorName: text(),
 		actorEmail: text(),
-		/** create, submit, return, publish, retire, … */
+		/** create, edit, submit, return, publish, retire, release, request, grant, decline, revoke, … */
 		action: text().notNull(),
 		organisationId: text(),
 		datasetId: uuid(),

@@ -8,3 +8,4 @@ export * from './site-values';
 export * from './files';
 export * from './audit';
 export * from './grids';
+export * from './access';

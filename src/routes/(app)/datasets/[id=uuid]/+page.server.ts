@@ -1,5 +1,11 @@
-import { error, fail, type RequestEvent } from '@sveltejs/kit';
-import { TRANSITION_NAMES, transitionRefusal, type TransitionName } from '$lib/server/access';
+import { error, fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import {
+	TRANSITION_NAMES,
+	embargoDateRefusal,
+	shareable,
+	transitionRefusal,
+	type TransitionName
+} from '$lib/server/access';
 import { getDb } from '$lib/server/db';
 import { requireUser } from '$lib/server/guards';
 import { mailTransition } from '$lib/server/lifecycle-mail';
@@ -11,14 +17,26 @@ import {
 	updateDatasetMetadata
 } from '$lib/server/repositories/datasets';
 import { lastReturnComment, transitionDataset } from '$lib/server/repositories/lifecycle';
+import {
+	catalogueEntry,
+	grantableOrganisations,
+	seesWholeDataset,
+	sharingOverview
+} from '$lib/server/repositories/sharing';
 import { listDatasetSites } from '$lib/server/repositories/sites';
-import { parseForm } from '$lib/schemas/form';
+import { sharingActions } from './sharing-actions';
+import { formValues, parseForm } from '$lib/schemas/form';
 import { datasetSchema, transitionSchema } from '$lib/schemas/dataset';
 import { parseSiteListQuery } from '$lib/sites/list-query';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const db = getDb();
+	// Not visible whole but a catalogue entry (restricted, under embargo): its public summary.
+	if (!(await seesWholeDataset(db, locals.viewer, params.id))) {
+		await catalogueEntry(db, locals.viewer, params.id);
+		redirect(303, `/datasets/${params.id}/about`);
+	}
 	const found = await datasetForViewer(db, locals.viewer, params.id);
 	const query = parseSiteListQuery(url.searchParams);
 	const [sites, files, imports, history] = await Promise.all([
@@ -40,6 +58,9 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 			found.can.readPrivate && found.dataset.status === 'returned'
 				? await lastReturnComment(db, params.id)
 				: null,
+		// Requests and grants: only published restricted or embargoed datasets take them.
+		sharing: shareable(found.dataset) ? await sharingOverview(db, found) : null,
+		grantOrganisations: found.can.grant ? await grantableOrganisations(db, found) : [],
 		query,
 		sites,
 		files,
@@ -88,8 +109,12 @@ export const actions: Actions = {
 		const db = getDb();
 		const found = await datasetForViewer(db, event.locals.viewer, event.params.id);
 		if (!found.can.editMetadata) error(403, 'Your role does not allow editing this dataset now.');
-		const parsed = parseForm(datasetSchema, await event.request.formData());
+		const formData = await event.request.formData();
+		const parsed = parseForm(datasetSchema, formData);
 		if (!parsed.ok) return fail(400, parsed);
+		const embargoRefusal = embargoDateRefusal(found.dataset, parsed.data);
+		if (embargoRefusal)
+			return fail(400, { errors: { embargoUntil: embargoRefusal }, values: formValues(formData) });
 		if (!(await updateDatasetMetadata(db, event.locals.viewer, found, parsed.data)))
 			error(403, 'The dataset changed state meanwhile; nothing was saved. Reload the page.');
 		return { saved: true };
@@ -97,5 +122,6 @@ export const actions: Actions = {
 	submit: transition('submit'),
 	return: transition('return'),
 	publish: transition('publish'),
-	retire: transition('retire')
+	retire: transition('retire'),
+	...sharingActions
 };

@@ -1,6 +1,7 @@
 import { getDb } from '$lib/server/db';
 import { organisationAndMembership } from '$lib/server/guards';
 import { listOrganisationDatasets } from '$lib/server/repositories/datasets';
+import { pendingRequestsOfOrganisation } from '$lib/server/repositories/sharing';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -14,6 +15,8 @@ export const load: PageServerLoad = async (event) => {
 			description: org.description
 		},
 		role: membership?.role ?? null,
-		datasets: await listOrganisationDatasets(getDb(), event.locals.viewer, org.id)
+		datasets: await listOrganisationDatasets(getDb(), event.locals.viewer, org.id),
+		// Datasets with access requests waiting (empty unless the viewer answers them).
+		accessRequests: await pendingRequestsOfOrganisation(getDb(), event.locals.viewer, org.id)
 	};
 };
