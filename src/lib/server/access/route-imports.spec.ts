@@ -1,5 +1,5 @@
 import { ESLint } from 'eslint';
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 /* The lint rule that keeps queries out of routes (eslint.config.js, src/routes/**). */
 const eslint = new ESLint();
@@ -7,6 +7,13 @@ const rulesHit = async (code: string, filePath: string) =>
 	(await eslint.lintText(code, { filePath }))[0].messages.map((m) => m.ruleId);
 
 describe('routes may not query the database themselves', () => {
+	// The first lint loads the whole configuration and its parsers and plugins: seconds on a busy
+	// machine, so it happens once here with room to spare instead of inside a test's time limit.
+	beforeAll(
+		() => rulesHit('export const warm = 1;\n', 'src/routes/(app)/x/+page.server.ts'),
+		120_000
+	);
+
 	it.each([
 		"import { eq } from 'drizzle-orm';",
 		"import { sql } from 'drizzle-orm/sql';",
