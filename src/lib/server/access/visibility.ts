@@ -1,4 +1,4 @@
-import { and, eq, inArray, lte, ne, or, sql, type SQL } from 'drizzle-orm';
+import { and, eq, inArray, isNull, lte, ne, or, sql, type SQL } from 'drizzle-orm';
 import { dataset } from '../db/schema';
 import { roleCan, type Action, type Resource } from '../permissions';
 import type { Viewer } from './viewer';
@@ -45,9 +45,16 @@ export function visibleDatasets(viewer: Viewer): SQL {
 	return or(released(), inArray(dataset.organisationId, own))!;
 }
 
-/** Maps and map queries: visible datasets, without retired ones (still readable on their page). */
+/**
+ * Maps and map queries: visible datasets, without retired and superseded ones (still readable on
+ * their page), so a corrected site shows once, as its latest version.
+ */
 export function visibleOnMaps(viewer: Viewer): SQL {
-	return and(visibleDatasets(viewer), ne(dataset.status, 'retired'))!;
+	return and(
+		visibleDatasets(viewer),
+		ne(dataset.status, 'retired'),
+		isNull(dataset.supersededById)
+	)!;
 }
 
 /**

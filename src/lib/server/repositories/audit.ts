@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, ne, sql } from 'drizzle-orm';
 import { requireUuid, visibleImports, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { auditEvent, dataset, user } from '../db/schema';
@@ -30,16 +30,25 @@ export async function recordAudit(db: DbOrTx, viewer: Viewer, event: AuditInput)
 /** A dataset's history, newest first, for members of its organisation (same rule as imports). */
 export async function listDatasetHistory(db: Db, viewer: Viewer, datasetId: string, limit = 50) {
 	requireUuid(datasetId);
-	return db
-		.select({
-			at: auditEvent.at,
-			action: auditEvent.action,
-			actorName: auditEvent.actorName,
-			details: auditEvent.details
-		})
-		.from(auditEvent)
-		.innerJoin(dataset, eq(auditEvent.datasetId, dataset.id))
-		.where(and(eq(auditEvent.datasetId, datasetId), visibleImports(viewer)))
-		.orderBy(desc(auditEvent.at))
-		.limit(limit);
+	return (
+		db
+			.select({
+				at: auditEvent.at,
+				action: auditEvent.action,
+				actorName: auditEvent.actorName,
+				details: auditEvent.details
+			})
+			.from(auditEvent)
+			.innerJoin(dataset, eq(auditEvent.datasetId, dataset.id))
+			// Downloads are many and not part of the dataset's story; they are on the audit page.
+			.where(
+				and(
+					eq(auditEvent.datasetId, datasetId),
+					ne(auditEvent.action, 'download'),
+					visibleImports(viewer)
+				)
+			)
+			.orderBy(desc(auditEvent.at))
+			.limit(limit)
+	);
 }

@@ -1,4 +1,5 @@
-import { error, fail, type RequestEvent } from '@sveltejs/kit';
+import { error, fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { citationFields } from '$lib/datasets/citation';
 import { TRANSITION_NAMES, transitionRefusal, type TransitionName } from '$lib/server/access';
 import { getDb } from '$lib/server/db';
 import { requireUser } from '$lib/server/guards';
@@ -6,12 +7,18 @@ import { mailTransition } from '$lib/server/lifecycle-mail';
 import { listDatasetHistory } from '$lib/server/repositories/audit';
 import {
 	datasetForViewer,
+	deleteUnpublishedDataset,
 	listDatasetFiles,
 	listDatasetImports,
 	updateDatasetMetadata
 } from '$lib/server/repositories/datasets';
 import { lastReturnComment, transitionDataset } from '$lib/server/repositories/lifecycle';
 import { listDatasetSites } from '$lib/server/repositories/sites';
+import {
+	diffAgainstPrevious,
+	openCorrection,
+	versionLinks
+} from '$lib/server/repositories/versions';
 import { parseForm } from '$lib/schemas/form';
 import { datasetSchema, transitionSchema } from '$lib/schemas/dataset';
 import { parseSiteListQuery } from '$lib/sites/list-query';
@@ -21,17 +28,24 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const db = getDb();
 	const found = await datasetForViewer(db, locals.viewer, params.id);
 	const query = parseSiteListQuery(url.searchParams);
-	const [sites, files, imports, history] = await Promise.all([
+	const unpublished = !['published', 'retired'].includes(found.dataset.status);
+	const [sites, files, imports, history, versions, diff] = await Promise.all([
 		listDatasetSites(db, locals.viewer, params.id, query),
 		listDatasetFiles(db, locals.viewer, params.id),
 		listDatasetImports(db, locals.viewer, params.id),
-		listDatasetHistory(db, locals.viewer, params.id)
+		listDatasetHistory(db, locals.viewer, params.id),
+		versionLinks(db, locals.viewer, found),
+		// What a new version changes, read by the curator before publishing it.
+		unpublished ? diffAgainstPrevious(db, locals.viewer, found) : null
 	]);
 	return {
 		dataset: found.dataset,
 		organisationName: found.organisationName,
 		organisationSlug: found.organisationSlug,
 		can: found.can,
+		citation: citationFields(found.dataset, found.organisationName, url.origin),
+		versions,
+		diff,
 		// The transitions this viewer may make now (the buttons shown).
 		transitions: TRANSITION_NAMES.filter(
 			(t) => transitionRefusal(locals.viewer, found.dataset, t) === null
@@ -93,6 +107,23 @@ export const actions: Actions = {
 		if (!(await updateDatasetMetadata(db, event.locals.viewer, found, parsed.data)))
 			error(403, 'The dataset changed state meanwhile; nothing was saved. Reload the page.');
 		return { saved: true };
+	},
+	/** Open a new draft version of a published dataset (or the one already open) and go there. */
+	correct: async (event) => {
+		requireUser(event, 'action');
+		const next = await openCorrection(getDb(), event.locals.viewer, event.params.id);
+		redirect(303, `/datasets/${next.id}?correcting=${next.created ? 'new' : 'open'}`);
+	},
+	/** Delete a dataset never published; published ones are refused (retire them). */
+	delete: async (event) => {
+		requireUser(event, 'action');
+		const gone = await deleteUnpublishedDataset(getDb(), event.locals.viewer, event.params.id);
+		redirect(
+			303,
+			gone.previousVersionId
+				? `/datasets/${gone.previousVersionId}`
+				: `/organisations/${gone.organisationSlug}`
+		);
 	},
 	submit: transition('submit'),
 	return: transition('return'),
