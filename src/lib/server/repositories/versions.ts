@@ -1,5 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { and, asc, eq, getTableColumns, isNull, sql } from 'drizzle-orm';
+import { toSnakeCase } from 'drizzle-orm/casing';
 import { diffVersions, type SiteValues, type VersionDiff } from '$lib/datasets/version-diff';
 import type { Viewer } from '../access';
 import type { Db } from '../db/client';
@@ -37,9 +38,10 @@ const PER_VERSION = new Set([
 /** Database column names of a table, without the ones the copy sets itself. */
 function copiedColumns(table: Parameters<typeof getTableColumns>[0], skip: string[]): string[] {
 	// All columns (also ones added later), so a new site value is never lost in a new version.
+	// Names as the client's snake_case casing writes them (db/client.ts), explicit ones as given.
 	return Object.entries(getTableColumns(table))
 		.filter(([key]) => !skip.includes(key))
-		.map(([, c]) => c.name);
+		.map(([, c]) => (c.keyAsName ? toSnakeCase(c.name) : c.name));
 }
 
 const cols = (names: string[], alias?: string) =>
