@@ -18,11 +18,12 @@ import {
 	replaceConductivitySamples
 } from '$lib/server/repositories/site-data';
 import { siteForViewer, siteMeasurements } from '$lib/server/repositories/site-detail';
+import { citationFields } from '$lib/datasets/citation';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const MAX_LOG_BYTES = 5 * 1024 * 1024;
 
-export const load: PageServerLoad = async ({ params, locals }) => {
+export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const db = getDb();
 	const found = await siteForViewer(db, locals.viewer, params.id);
 	const m = await siteMeasurements(db, locals.viewer, params.id);
@@ -32,7 +33,8 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 			id: found.dataset.id,
 			title: found.dataset.title,
 			licence: found.dataset.licence,
-			citation: found.dataset.citation
+			// The dataset version's citation, built once (datasets/citation.ts).
+			citation: citationFields(found.dataset, found.organisationName, url.origin).citation
 		},
 		organisationName: found.organisationName,
 		can: { edit: found.can.upload },
