@@ -128,7 +128,9 @@ export default ts.config(
 			'src/lib/geostats/**/*.ts',
 			'src/lib/imports/**/*.ts',
 			'src/lib/chart-data/**/*.ts',
-			'src/lib/sites/**/*.ts'
+			'src/lib/sites/**/*.ts',
+			'src/lib/csv/**/*.ts',
+			'src/lib/datasets/**/*.ts'
 		],
 		// Specs and their fixture loaders run in Node under Vitest and may read files.
 		ignores: ['**/*.spec.ts', '**/fixtures/**'],

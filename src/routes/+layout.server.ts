@@ -1,3 +1,4 @@
+import { mayReadAudit } from '$lib/server/repositories/audit';
 import type { LayoutServerLoad } from './$types';
 
 export const load: LayoutServerLoad = ({ locals }) => ({
@@ -6,7 +7,8 @@ export const load: LayoutServerLoad = ({ locals }) => ({
 				name: locals.user.name,
 				email: locals.user.email,
 				emailVerified: locals.user.emailVerified,
-				isPlatformAdmin: locals.viewer.isPlatformAdmin
+				isPlatformAdmin: locals.viewer.isPlatformAdmin,
+				mayReadAudit: mayReadAudit(locals.viewer)
 			}
 		: null
 });

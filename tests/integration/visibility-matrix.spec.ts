@@ -116,6 +116,9 @@ const isEntry = (c: CaseName) =>
 	['restricted', 'embargoed'].includes(CASES[c].visibility);
 const sees = (k: Kind, c: CaseName) =>
 	CASES[c].everyone || MEMBERS.includes(k) || (k === 'grantee' && isEntry(c));
+
+/** Who reads this organisation's audit log: its curators and owners, and platform administrators. */
+const AUDIT_READERS: Kind[] = ['curator', 'owner', 'platformAdmin'];
 const changes = (k: Kind, c: CaseName) => CHANGERS[CASES[c].status].includes(k);
 
 const { db, client: sql } = createDb(testEnv.databaseUrl(), { max: 2 });
@@ -449,6 +452,28 @@ const ROUTES: Record<string, Row> = {
 				}
 			},
 			{
+				name: 'correct (?/correct) and delete (?/delete) where refused',
+				run: async (k, c) => {
+					// Allowed ones would open versions or delete the fixture: versions.spec.ts runs them.
+					const published = CASES[c].status === 'published';
+					const corrects = published && CHANGERS.draft.includes(k);
+					const deletes = !published && CASES[c].status !== 'retired' && REVIEWERS.includes(k);
+					if (!corrects) {
+						const res = await clients[k].post(`/datasets/${ids[c].dataset}?/correct`, {});
+						expect(writeStatus(k, c, false, 303)).toContain(res.status);
+					}
+					if (!deletes) {
+						const res = await clients[k].post(`/datasets/${ids[c].dataset}?/delete`, {});
+						expect(writeStatus(k, c, false, 303)).toContain(res.status);
+					}
+					const [row] = await db.select().from(dataset).where(eq(dataset.id, ids[c].dataset));
+					expect(row.status).toBe(CASES[c].status);
+					expect(
+						await db.select().from(dataset).where(eq(dataset.previousVersionId, ids[c].dataset))
+					).toEqual([]);
+				}
+			},
+			{
 				name: 'edit metadata (?/update, empty form)',
 				run: async (k, c) => {
 					const res = await clients[k].post(`/datasets/${ids[c].dataset}?/update`, {});
@@ -492,6 +517,71 @@ const ROUTES: Record<string, Row> = {
 					if (sees(k, c)) return expect(res.status).toBe(403);
 					if (!isEntry(c)) return expectHidden(res);
 					expect(res.status).toBe(200);
+				}
+			}
+		]
+	},
+	'/(app)/datasets/[id=uuid]/download/sites.csv': {
+		checks: [
+			{
+				name: 'download the sites as CSV (citation header)',
+				run: async (k, c) => {
+					const res = await get(k, `/datasets/${ids[c].dataset}/download/sites.csv`);
+					if (!sees(k, c)) return expectHidden(res);
+					expect(res.status).toBe(200);
+					const body = await res.text();
+					expect(body).toMatch(/^# Cite as: /);
+					expect(body).toContain(`MX-${caseNames.indexOf(c)}-${run}`);
+				}
+			}
+		]
+	},
+	'/(app)/datasets/[id=uuid]/download/sites.geojson': {
+		checks: [
+			{
+				name: 'download the sites as GeoJSON (citation metadata)',
+				run: async (k, c) => {
+					const res = await get(k, `/datasets/${ids[c].dataset}/download/sites.geojson`);
+					if (!sees(k, c)) return expectHidden(res);
+					expect(res.status).toBe(200);
+					const body = await res.json();
+					expect(body.metadata.citation).toContain(title(c));
+					expect(body.features).toHaveLength(1);
+				}
+			}
+		]
+	},
+	'/(app)/audit': {
+		checks: [
+			{
+				name: "audit page (a member's download of the dataset, filtered by dataset)",
+				run: async (k, c) => {
+					await clients.owner.get(`/datasets/${ids[c].dataset}/download/sites.csv`);
+					const res = await get(k, `/audit?dataset=${ids[c].dataset}`);
+					if (k === 'anonymous') return expect(res.status).toBe(303);
+					const reads = AUDIT_READERS.includes(k);
+					if (k === 'outsider') {
+						// Owner of another organisation: reads that one's log, not this one's.
+						expect(res.status).toBe(200);
+						return expect(await res.text()).not.toContain(title(c));
+					}
+					expect(res.status).toBe(reads ? 200 : 403);
+					expect((await res.text()).includes(title(c))).toBe(reads);
+				}
+			}
+		]
+	},
+	'/(app)/audit/export.csv': {
+		checks: [
+			{
+				name: 'audit export (CSV)',
+				run: async (k, c) => {
+					await clients.owner.get(`/datasets/${ids[c].dataset}/download/sites.csv`);
+					const res = await get(k, `/audit/export.csv?dataset=${ids[c].dataset}`);
+					if (k === 'anonymous') return expect(res.status).toBe(401);
+					const reads = AUDIT_READERS.includes(k) || k === 'outsider';
+					expect(res.status).toBe(reads ? 200 : 403);
+					expect((await res.text()).includes(ids[c].dataset)).toBe(AUDIT_READERS.includes(k));
 				}
 			}
 		]

@@ -39,7 +39,9 @@ describe('purity rule for pure modules', () => {
 				'geostats',
 				'imports',
 				'chart-data',
-				'sites'
+				'sites',
+				'csv',
+				'datasets'
 			]) {
 				for (const [code, expected] of probes) {
 					const hits = await ruleHits(code, `src/lib/${folder}/probe.ts`);

@@ -1,22 +1,12 @@
 // The preview's issues as a downloadable CSV (row, severity, column, message).
 
-import Papa from 'papaparse';
+import { writeCsv } from '../csv/write';
 import type { ImportIssue } from './types';
 
 /** Renders issues as CSV text with a header; row is empty for whole-file issues. */
 export function issuesToCsv(issues: readonly ImportIssue[]): string {
-	return (
-		Papa.unparse(
-			{
-				fields: ['row', 'severity', 'column', 'message'],
-				data: issues.map((i) => [
-					i.row === null ? '' : String(i.row),
-					i.severity,
-					i.column,
-					i.message
-				])
-			},
-			{ newline: '\n', quotes: false, escapeFormulae: true }
-		) + '\n'
+	return writeCsv(
+		['row', 'severity', 'column', 'message'],
+		issues.map((i) => [i.row === null ? '' : String(i.row), i.severity, i.column, i.message])
 	);
 }

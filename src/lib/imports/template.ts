@@ -1,6 +1,6 @@
 // The downloadable upload template: Thermalith's own column names with one invented example row.
 
-import Papa from 'papaparse';
+import { writeCsv } from '../csv/write';
 import { FIELDS, type FieldKey } from './fields';
 
 /** File name the template is shipped and offered under (static/examples/). */
@@ -44,13 +44,8 @@ export function templateColumns(): string[] {
 /** The template as comma-separated UTF-8 text with a header and one invented example row. */
 export function templateCsv(): string {
 	const fields = FIELDS.filter((f) => !NOT_IN_TEMPLATE.has(f.key));
-	return (
-		Papa.unparse(
-			{
-				fields: fields.map((f) => f.templateColumn),
-				data: [fields.map((f) => EXAMPLE[f.key] ?? '')]
-			},
-			{ newline: '\n' }
-		) + '\n'
+	return writeCsv(
+		fields.map((f) => f.templateColumn),
+		[fields.map((f) => EXAMPLE[f.key] ?? '')]
 	);
 }

@@ -18,6 +18,7 @@ export const datasetSchema = z
 			)
 			.refine((k) => k.length <= 20, 'Use at most 20 keywords.'),
 		licence: z.enum(LICENCE_IDS, { message: 'Choose a licence from the list.' }),
+		authors: z.string().trim().max(1000, 'Keep the authors under 1,000 characters.').default(''),
 		citation: z.string().trim().max(1000).default(''),
 		doi: z
 			.string()

@@ -25,7 +25,9 @@ export const statements = {
 	],
 	/** Decide who outside the organisation may see restricted or embargoed data. */
 	access: ['grant', 'revoke', 'answer-request', 'see-downloads'],
-	upload: ['create']
+	upload: ['create'],
+	/** Read (and export) the organisation's audit log. */
+	audit: ['read']
 } as const;
 
 export const ac = createAccessControl(statements);
@@ -39,12 +41,14 @@ export const roles = {
 		invitation: ['create', 'cancel'],
 		dataset: everyDatasetAction,
 		access: ['grant', 'revoke', 'answer-request', 'see-downloads'],
-		upload: ['create']
+		upload: ['create'],
+		audit: ['read']
 	}),
 	curator: ac.newRole({
 		dataset: everyDatasetAction,
 		access: ['grant', 'revoke', 'answer-request', 'see-downloads'],
-		upload: ['create']
+		upload: ['create'],
+		audit: ['read']
 	}),
 	contributor: ac.newRole({
 		dataset: ['read-private', 'create', 'edit-draft', 'submit'],

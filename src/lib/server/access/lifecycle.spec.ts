@@ -70,3 +70,33 @@ describe('datasetRights', () => {
 		expect(r.uploadRefusal).toBe('Confirm your e-mail address before you upload.');
 	});
 });
+
+describe('datasetRights: versions and deleting', () => {
+	const right = (
+		role: string | null,
+		status: string,
+		extra: object = {},
+		v: Partial<Viewer> = {}
+	) => datasetRights(as(role, v), { organisationId: ORG, status, ...extra }).can;
+
+	it('lets contributors, curators and owners correct the latest published version only', () => {
+		for (const role of ['contributor', 'curator', 'owner'])
+			expect(right(role, 'published').correct, role).toBe(true);
+		for (const role of ['viewer', null]) expect(right(role, 'published').correct).toBe(false);
+		for (const status of ['draft', 'in_review', 'returned', 'retired'])
+			expect(right('curator', status).correct, status).toBe(false);
+		expect(right('curator', 'published', { supersededById: 'newer' }).correct).toBe(false);
+		expect(right('curator', 'published', {}, { emailVerified: false }).correct).toBe(false);
+		expect(right(null, 'published', {}, { isPlatformAdmin: true }).correct).toBe(false);
+	});
+
+	it('lets curators and owners delete only what was never published', () => {
+		for (const status of ['draft', 'in_review', 'returned']) {
+			expect(right('curator', status).deleteDataset, status).toBe(true);
+			expect(right('owner', status).deleteDataset, status).toBe(true);
+			expect(right('contributor', status).deleteDataset, status).toBe(false);
+		}
+		for (const status of ['published', 'retired'])
+			expect(right('owner', status).deleteDataset, status).toBe(false);
+	});
+});

@@ -5,6 +5,8 @@ import type { Viewer } from './viewer';
 export interface DatasetState {
 	organisationId: string;
 	status: string;
+	/** Set once a newer version is published: only the latest version is corrected. */
+	supersededById?: string | null;
 }
 
 /** Draft and returned datasets are the contributor's to change; in review they are the curator's. */
@@ -35,7 +37,20 @@ export function datasetRights(viewer: Viewer, d: DatasetState) {
 		/** Share it outside the organisation: answer requests, grant and revoke (sharing.ts). */
 		answerRequests: roleCan(role, 'access', 'answer-request'),
 		grant: roleCan(role, 'access', 'grant'),
-		revoke: roleCan(role, 'access', 'revoke')
+		revoke: roleCan(role, 'access', 'revoke'),
+		/**
+		 * Open a new draft version of the latest published version (versions.ts): whoever could
+		 * add data to a draft of the organisation (upload right, confirmed address).
+		 */
+		correct:
+			d.status === 'published' &&
+			!d.supersededById &&
+			roleCan(role, 'dataset', 'edit-draft') &&
+			roleCan(role, 'upload', 'create') &&
+			viewer.emailVerified,
+		/** Delete the whole dataset: never once published (retire it instead). */
+		deleteDataset:
+			roleCan(role, 'dataset', 'delete') && d.status !== 'published' && d.status !== 'retired'
 	};
 	const uploadRefusal = can.upload
 		? null

@@ -1,4 +1,4 @@
-import { and, eq, inArray, lte, ne, or, sql, type SQL } from 'drizzle-orm';
+import { and, eq, inArray, isNull, lte, ne, or, sql, type SQL } from 'drizzle-orm';
 import { utcDay } from '../clock';
 import { accessGrant, dataset } from '../db/schema';
 import { roleCan, type Action, type Resource } from '../permissions';
@@ -91,9 +91,16 @@ export function catalogueEntries(): SQL {
 	)!;
 }
 
-/** Maps and map queries: visible datasets, without retired ones (still readable on their page). */
+/**
+ * Maps and map queries: visible datasets, without retired and superseded ones (still readable on
+ * their page), so a corrected site shows once, as its latest version.
+ */
 export function visibleOnMaps(viewer: Viewer, at: Date = new Date()): SQL {
-	return and(visibleDatasets(viewer, at), ne(dataset.status, 'retired'))!;
+	return and(
+		visibleDatasets(viewer, at),
+		ne(dataset.status, 'retired'),
+		isNull(dataset.supersededById)
+	)!;
 }
 
 /**

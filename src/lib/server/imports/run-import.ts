@@ -2,7 +2,8 @@ import { error } from '@sveltejs/kit';
 import { eq, sql } from 'drizzle-orm';
 import type { Viewer } from '../access';
 import type { Db } from '../db/client';
-import { importBatch, site, type NewSite } from '../db/schema';
+import { dataset, importBatch, site, type NewSite } from '../db/schema';
+import { recordAudit, type DbOrTx } from '../repositories/audit';
 import type { ImportPayload } from './payload';
 import { serverPreview } from './server-preview';
 
@@ -43,7 +44,14 @@ export async function startImport(
 			createdBy: viewer.userId
 		})
 		.returning({ id: importBatch.id });
-	void insertAll(db, batch.id, datasetId, rows);
+	void insertAll(db, batch.id, datasetId, rows, async (tx) => {
+		await recordAudit(tx, viewer, {
+			action: 'import',
+			organisationId: sql`(SELECT ${dataset.organisationId} FROM ${dataset} WHERE ${dataset.id} = ${datasetId})`,
+			datasetId,
+			details: { importId: batch.id, fileName: payload.fileName, rows: rows.length }
+		});
+	});
 	return { batchId: batch.id, rows: rows.length, warnings: preview.warningCount };
 }
 
@@ -52,7 +60,9 @@ export async function insertSites(
 	db: Db,
 	datasetId: string,
 	rows: NewSite[],
-	onChunk: (done: number) => Promise<void>
+	onChunk: (done: number) => Promise<void>,
+	/** Written in the same transaction (the audit row of the import). */
+	record?: (tx: DbOrTx) => Promise<void>
 ) {
 	await db.transaction(async (tx) => {
 		for (let i = 0; i < rows.length; i += CHUNK_ROWS) {
@@ -60,14 +70,27 @@ export async function insertSites(
 			await onChunk(Math.min(rows.length, i + CHUNK_ROWS));
 		}
 		await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${datasetId}`);
+		await record?.(tx);
 	});
 }
 
-async function insertAll(db: Db, batchId: string, datasetId: string, rows: NewSite[]) {
+async function insertAll(
+	db: Db,
+	batchId: string,
+	datasetId: string,
+	rows: NewSite[],
+	record: (tx: DbOrTx) => Promise<void>
+) {
 	try {
-		await insertSites(db, datasetId, rows, async (done) => {
-			await db.update(importBatch).set({ doneRows: done }).where(eq(importBatch.id, batchId));
-		});
+		await insertSites(
+			db,
+			datasetId,
+			rows,
+			async (done) => {
+				await db.update(importBatch).set({ doneRows: done }).where(eq(importBatch.id, batchId));
+			},
+			record
+		);
 		await db
 			.update(importBatch)
 			.set({ status: 'done', finishedAt: new Date() })

@@ -1,9 +1,10 @@
 import { error } from '@sveltejs/kit';
-import { and, eq, lt } from 'drizzle-orm';
+import { and, eq, lt, sql } from 'drizzle-orm';
 import { datasetRights, notFound, requireUuid, visibleDatasets, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { attachment, dataset, site } from '../db/schema';
 import type { VisibleDataset } from './datasets';
+import { recordAudit } from './audit';
 
 type Attachment = typeof attachment.$inferSelect;
 declare const changeable: unique symbol;
@@ -98,19 +99,30 @@ export async function markAttachmentReady(
 	file: ChangeableAttachment,
 	checked: { objectKey: string; contentType: string; sha256: string; thumbnailKey: string | null }
 ): Promise<Attachment | null> {
-	if (!viewer.userId) return null;
-	const [updated] = await db
-		.update(attachment)
-		.set({ status: 'ready', ...checked })
-		.where(
-			and(
-				eq(attachment.id, file.id),
-				eq(attachment.status, 'pending'),
-				eq(attachment.uploadedBy, viewer.userId)
+	const userId = viewer.userId;
+	if (!userId) return null;
+	return db.transaction(async (tx) => {
+		const [updated] = await tx
+			.update(attachment)
+			.set({ status: 'ready', ...checked })
+			.where(
+				and(
+					eq(attachment.id, file.id),
+					eq(attachment.status, 'pending'),
+					eq(attachment.uploadedBy, userId)
+				)
 			)
-		)
-		.returning();
-	return updated ?? null;
+			.returning();
+		if (!updated) return null;
+		// The file is the organisation's from now on: recorded with the change.
+		await recordAudit(tx, viewer, {
+			action: 'upload',
+			organisationId: sql`(SELECT ${dataset.organisationId} FROM ${dataset} WHERE ${dataset.id} = ${updated.datasetId})`,
+			datasetId: updated.datasetId,
+			details: { fileName: updated.fileName, sizeBytes: updated.sizeBytes, siteId: updated.siteId }
+		});
+		return updated;
+	});
 }
 
 /** Forget a file whose upload failed, only while it is still pending (a racing winner stays). */

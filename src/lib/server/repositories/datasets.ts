@@ -1,4 +1,5 @@
-import { and, asc, count, desc, eq, inArray, isNull } from 'drizzle-orm';
+import { error } from '@sveltejs/kit';
+import { and, asc, count, desc, eq, inArray, isNull, notInArray } from 'drizzle-orm';
 import {
 	datasetRights,
 	notFound,
@@ -209,4 +210,44 @@ export async function updateDatasetMetadata(
 		});
 		return true;
 	});
+}
+
+export const DELETE_PUBLISHED_REFUSAL =
+	'A dataset that has been published is never deleted: it stays citable. Retire it instead. Nothing was changed.';
+
+/**
+ * Delete a dataset that was never published (a draft, or a correction nobody wants), with its
+ * sites. Published and retired versions are refused (retire them); so are datasets that still
+ * hold files (their stored bytes are removed one by one with the file delete).
+ */
+export async function deleteUnpublishedDataset(db: Db, viewer: Viewer, id: string) {
+	const found = await datasetForViewer(db, viewer, id);
+	const d = found.dataset;
+	if (d.status === 'published' || d.status === 'retired') error(403, DELETE_PUBLISHED_REFUSAL);
+	if (!found.can.deleteDataset)
+		error(
+			403,
+			'Only curators and owners of its organisation may delete a dataset. Nothing was changed.'
+		);
+	const [files] = await db
+		.select({ n: count() })
+		.from(attachment)
+		.where(eq(attachment.datasetId, id));
+	if (files.n > 0) error(409, 'Delete its files first, then the dataset. Nothing was changed.');
+	const deleted = await db.transaction(async (tx) => {
+		const rows = await tx
+			.delete(dataset)
+			.where(and(eq(dataset.id, id), notInArray(dataset.status, ['published', 'retired'])))
+			.returning({ id: dataset.id });
+		if (rows.length !== 1) return false;
+		await recordAudit(tx, viewer, {
+			action: 'delete',
+			organisationId: d.organisationId,
+			datasetId: id,
+			details: { title: d.title, version: d.version }
+		});
+		return true;
+	});
+	if (!deleted) error(403, DELETE_PUBLISHED_REFUSAL);
+	return { organisationSlug: found.organisationSlug, previousVersionId: d.previousVersionId };
 }

@@ -13,6 +13,7 @@ import { auditEvent, dataset, member, user, type Dataset } from '../db/schema';
 import { roleCan } from '../permissions';
 import { recordAudit, type DbOrTx } from './audit';
 import { datasetForViewer } from './datasets';
+import { supersedePrevious } from './versions';
 
 /** "Cora Curator published it on 2026-12-02 at 08:10 UTC", from the latest transition recorded. */
 async function lastTransition(db: DbOrTx, datasetId: string): Promise<string> {
@@ -56,15 +57,28 @@ export async function transitionDataset(
 	const result = await db.transaction(async (tx) => {
 		const [updated] = await tx
 			.update(dataset)
-			.set({ status: t.to, updatedBy: viewer.userId, updatedAt: new Date() })
+			.set({
+				status: t.to,
+				updatedBy: viewer.userId,
+				updatedAt: new Date(),
+				...(name === 'publish' ? { publishedAt: new Date() } : {})
+			})
 			.where(and(eq(dataset.id, datasetId), inArray(dataset.status, [...t.from])))
 			.returning();
 		if (!updated) return null;
+		// A new version supersedes the one it corrects when it is published (versions.ts).
+		const supersedes = name === 'publish' ? updated.previousVersionId : null;
+		if (supersedes) await supersedePrevious(tx, updated);
 		await recordAudit(tx, viewer, {
 			action: name,
 			organisationId: updated.organisationId,
 			datasetId,
-			details: { from: found.dataset.status, to: t.to, ...(comment ? { comment } : {}) }
+			details: {
+				from: found.dataset.status,
+				to: t.to,
+				...(comment ? { comment } : {}),
+				...(supersedes ? { supersedes } : {})
+			}
 		});
 		return { dataset: updated, from: found.dataset.status };
 	});

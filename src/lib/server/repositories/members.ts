@@ -2,6 +2,7 @@ import { and, asc, eq, gt } from 'drizzle-orm';
 import type { Viewer } from '../access';
 import type { Db } from '../db/client';
 import { invitation, member, organisation, user } from '../db/schema';
+import { recordAudit } from './audit';
 
 /** Members of an organisation with their names, e-mail addresses and roles. */
 export async function listMembers(db: Db, organisationId: string) {
@@ -81,4 +82,45 @@ export async function invitationForViewer(db: Db, viewer: Viewer, id: string) {
 		status: found.status,
 		expired: found.expiresAt < new Date()
 	};
+}
+
+/** Record a role given to a member (the change itself went through better-auth). */
+export async function recordRoleChange(
+	db: Db,
+	viewer: Viewer,
+	organisationId: string,
+	memberId: string,
+	role: string
+) {
+	const [target] = await db
+		.select({ userId: user.id, name: user.name, email: user.email })
+		.from(member)
+		.innerJoin(user, eq(member.userId, user.id))
+		.where(and(eq(member.id, memberId), eq(member.organizationId, organisationId)));
+	await recordAudit(db, viewer, {
+		action: 'role-change',
+		organisationId,
+		datasetId: null,
+		details: { memberId, role, userId: target?.userId, name: target?.name, email: target?.email }
+	});
+}
+
+/** Record a platform administrator suspending or restoring an account (done through better-auth). */
+export async function recordSuspension(
+	db: Db,
+	viewer: Viewer,
+	userId: string,
+	action: 'suspend' | 'restore',
+	reason: string | null
+) {
+	const [target] = await db
+		.select({ name: user.name, email: user.email })
+		.from(user)
+		.where(eq(user.id, userId));
+	await recordAudit(db, viewer, {
+		action,
+		organisationId: null,
+		datasetId: null,
+		details: { userId, name: target?.name, email: target?.email, ...(reason ? { reason } : {}) }
+	});
 }

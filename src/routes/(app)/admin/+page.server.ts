@@ -4,6 +4,7 @@ import { auth } from '$lib/server/auth';
 import { authFailure } from '$lib/server/auth/errors';
 import { getDb } from '$lib/server/db';
 import { requirePlatformAdmin } from '$lib/server/guards';
+import { recordSuspension } from '$lib/server/repositories/members';
 import { listOrganisationsForAdmin } from '$lib/server/repositories/organisations';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -59,6 +60,13 @@ export const actions: Actions = {
 		} catch (err) {
 			return authFailure(err);
 		}
+		await recordSuspension(
+			getDb(),
+			event.locals.viewer,
+			parsed.data.userId,
+			'suspend',
+			parsed.data.reason || null
+		);
 		return { done: 'suspended' };
 	},
 	restore: async (event) => {
@@ -73,6 +81,7 @@ export const actions: Actions = {
 		} catch (err) {
 			return authFailure(err);
 		}
+		await recordSuspension(getDb(), event.locals.viewer, parsed.data.userId, 'restore', null);
 		return { done: 'restored' };
 	}
 };

@@ -23,7 +23,8 @@ export const auditEvent = pgTable(
 	},
 	(t) => [
 		index('audit_event_dataset_idx').on(t.datasetId, t.at),
-		index('audit_event_organisation_idx').on(t.organisationId, t.at)
+		index('audit_event_organisation_idx').on(t.organisationId, t.at),
+		index('audit_event_at_idx').on(t.at)
 	]
 );
 

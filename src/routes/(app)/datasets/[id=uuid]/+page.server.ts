@@ -1,4 +1,5 @@
 import { error, fail, redirect, type RequestEvent } from '@sveltejs/kit';
+import { citationFields } from '$lib/datasets/citation';
 import {
 	TRANSITION_NAMES,
 	embargoDateRefusal,
@@ -12,6 +13,7 @@ import { mailTransition } from '$lib/server/lifecycle-mail';
 import { listDatasetHistory } from '$lib/server/repositories/audit';
 import {
 	datasetForViewer,
+	deleteUnpublishedDataset,
 	listDatasetFiles,
 	listDatasetImports,
 	updateDatasetMetadata
@@ -25,6 +27,11 @@ import {
 } from '$lib/server/repositories/sharing';
 import { listDatasetSites } from '$lib/server/repositories/sites';
 import { sharingActions } from './sharing-actions';
+import {
+	diffAgainstPrevious,
+	openCorrection,
+	versionLinks
+} from '$lib/server/repositories/versions';
 import { formValues, parseForm } from '$lib/schemas/form';
 import { datasetSchema, transitionSchema } from '$lib/schemas/dataset';
 import { parseSiteListQuery } from '$lib/sites/list-query';
@@ -39,17 +46,24 @@ export const load: PageServerLoad = async ({ params, locals, url }) => {
 	}
 	const found = await datasetForViewer(db, locals.viewer, params.id);
 	const query = parseSiteListQuery(url.searchParams);
-	const [sites, files, imports, history] = await Promise.all([
+	const unpublished = !['published', 'retired'].includes(found.dataset.status);
+	const [sites, files, imports, history, versions, diff] = await Promise.all([
 		listDatasetSites(db, locals.viewer, params.id, query),
 		listDatasetFiles(db, locals.viewer, params.id),
 		listDatasetImports(db, locals.viewer, params.id),
-		listDatasetHistory(db, locals.viewer, params.id)
+		listDatasetHistory(db, locals.viewer, params.id),
+		versionLinks(db, locals.viewer, found),
+		// What a new version changes, read by the curator before publishing it.
+		unpublished ? diffAgainstPrevious(db, locals.viewer, found) : null
 	]);
 	return {
 		dataset: found.dataset,
 		organisationName: found.organisationName,
 		organisationSlug: found.organisationSlug,
 		can: found.can,
+		citation: citationFields(found.dataset, found.organisationName, url.origin),
+		versions,
+		diff,
 		// The transitions this viewer may make now (the buttons shown).
 		transitions: TRANSITION_NAMES.filter(
 			(t) => transitionRefusal(locals.viewer, found.dataset, t) === null
@@ -118,6 +132,23 @@ export const actions: Actions = {
 		if (!(await updateDatasetMetadata(db, event.locals.viewer, found, parsed.data)))
 			error(403, 'The dataset changed state meanwhile; nothing was saved. Reload the page.');
 		return { saved: true };
+	},
+	/** Open a new draft version of a published dataset (or the one already open) and go there. */
+	correct: async (event) => {
+		requireUser(event, 'action');
+		const next = await openCorrection(getDb(), event.locals.viewer, event.params.id);
+		redirect(303, `/datasets/${next.id}?correcting=${next.created ? 'new' : 'open'}`);
+	},
+	/** Delete a dataset never published; published ones are refused (retire them). */
+	delete: async (event) => {
+		requireUser(event, 'action');
+		const gone = await deleteUnpublishedDataset(getDb(), event.locals.viewer, event.params.id);
+		redirect(
+			303,
+			gone.previousVersionId
+				? `/datasets/${gone.previousVersionId}`
+				: `/organisations/${gone.organisationSlug}`
+		);
 	},
 	submit: transition('submit'),
 	return: transition('return'),

@@ -39,11 +39,12 @@ import {
 	recordSiteComputation,
 	siteRevisions
 } from '$lib/server/repositories/site-values';
+import { citationFields } from '$lib/datasets/citation';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const MAX_LOG_BYTES = 5 * 1024 * 1024;
 
-export const load: PageServerLoad = async ({ params, locals }) => {
+export const load: PageServerLoad = async ({ params, locals, url }) => {
 	const db = getDb();
 	const found = await siteForViewer(db, locals.viewer, params.id);
 	const [m, revisions] = await Promise.all([
@@ -58,7 +59,8 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 			id: found.dataset.id,
 			title: found.dataset.title,
 			licence: found.dataset.licence,
-			citation: found.dataset.citation
+			// The dataset version's citation, built once (datasets/citation.ts).
+			citation: citationFields(found.dataset, found.organisationName, url.origin).citation
 		},
 		organisationName: found.organisationName,
 		can: { edit: found.can.upload },

@@ -4,7 +4,11 @@ import { authFailure } from '$lib/server/auth/errors';
 import { getDb } from '$lib/server/db';
 import { organisationAndMembership, requireOrgPermission, requireUser } from '$lib/server/guards';
 import { roleCan } from '$lib/server/permissions';
-import { listMembers, listPendingInvitations } from '$lib/server/repositories/members';
+import {
+	listMembers,
+	listPendingInvitations,
+	recordRoleChange
+} from '$lib/server/repositories/members';
 import { parseForm } from '$lib/schemas/form';
 import {
 	changeRoleSchema,
@@ -112,7 +116,15 @@ export const actions: Actions = {
 				}),
 			'members'
 		);
-		return failed ?? { form: 'members', saved: true };
+		if (failed) return failed;
+		await recordRoleChange(
+			getDb(),
+			event.locals.viewer,
+			org.id,
+			parsed.data.memberId,
+			parsed.data.role
+		);
+		return { form: 'members', saved: true };
 	},
 	transfer: async (event) => {
 		const { org, membership } = await requireOrgPermission(
@@ -146,7 +158,11 @@ export const actions: Actions = {
 					}),
 				'members'
 			));
-		return failed ?? { form: 'members', transferred: true };
+		if (failed) return failed;
+		const db = getDb();
+		await recordRoleChange(db, event.locals.viewer, org.id, parsed.data.memberId, 'owner');
+		await recordRoleChange(db, event.locals.viewer, org.id, membership.id, 'curator');
+		return { form: 'members', transferred: true };
 	},
 	remove: async (event) => {
 		const { org } = await requireOrgPermission(event, event.params.slug!, 'member', 'delete');
