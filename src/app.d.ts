@@ -9,6 +9,8 @@ declare global {
 			viewer: import('$lib/server/access').Viewer;
 			user: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['user'] | null;
 			session: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['session'] | null;
+			/** The API key a request came with (then `session` is null), or null. */
+			apiKey: { id: string; scopes: string[] } | null;
 		}
 		// interface PageData {}
 		// interface PageState {}

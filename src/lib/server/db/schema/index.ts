@@ -6,3 +6,4 @@ export * from './auth';
 export * from './site-data';
 export * from './files';
 export * from './audit';
+export * from './api-keys';
