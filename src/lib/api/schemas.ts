@@ -207,7 +207,11 @@ export const crustLayerSchema = z
 		heatProductionDecayM: positive.optional(),
 		conductivityTempCoeffPerK: z.number().min(0).optional(),
 		conductivitySigmaWmK: z.number().min(0).optional().meta({ description: '1-σ, for the band.' }),
-		heatProductionSigmaUWm3: z.number().min(0).optional().meta({ description: '1-σ, for the band.' })
+		heatProductionSigmaUWm3: z
+			.number()
+			.min(0)
+			.optional()
+			.meta({ description: '1-σ, for the band.' })
 	})
 	.meta({ id: 'CrustLayer' });
 

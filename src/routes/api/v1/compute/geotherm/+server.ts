@@ -1,0 +1,9 @@
+import { geothermRequestSchema } from '$lib/api/schemas';
+import { computeGeotherm } from '$lib/server/api/compute';
+import { apiHandler, computedAnswer, parseJsonBody } from '$lib/server/api/http';
+import type { RequestHandler } from './$types';
+
+/** A geotherm with its P10–P90 band for a posted crustal model; stores nothing. */
+export const POST: RequestHandler = apiHandler(async ({ request }) =>
+	computedAnswer(computeGeotherm(await parseJsonBody(geothermRequestSchema, request)))
+);
