@@ -1,4 +1,4 @@
-import { and, desc, eq, gt, isNull, or, sql } from 'drizzle-orm';
+import { and, desc, eq, gt, isNull, lt, or, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { apiKey, user } from '../db/schema';
 import { hashKey, newKeySecret } from '../api/key-secret';
@@ -103,7 +103,7 @@ export async function resolveApiKey(db: Db, key: string, now = new Date()) {
 			and(
 				eq(user.id, row.userId),
 				// A banned account's keys stop with it (better-auth lifts expired bans itself).
-				or(sql`${user.banned} IS NOT TRUE`, sql`${user.banExpires} < ${now}`)
+				or(sql`${user.banned} IS NOT TRUE`, lt(user.banExpires, now))
 			)
 		);
 	if (!owner) return null;
