@@ -214,7 +214,7 @@ describe('every answer fits the document', () => {
 			await script.fetch('/api/v1/compute/heat-flow', {
 				method: 'POST',
 				body: 'x',
-				headers: { 'content-type': 'text/plain' }
+				headers: { 'content-type': 'application/xml' }
 			})
 		);
 	});

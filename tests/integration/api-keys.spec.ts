@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { hashKey } from '../../src/lib/server/api/key-secret';
+import { USER_RATE_RULES } from '../../src/lib/server/auth/rate-rules';
 import { createDb } from '../../src/lib/server/db/client';
 import { apiKey } from '../../src/lib/server/db/schema';
 import { KeyClient, keyFor } from './api-key-client';
@@ -128,6 +129,26 @@ describe('API key checks', () => {
 		expect(Number.isInteger(retry) && retry >= 1 && retry <= 60).toBe(true);
 		const other = new KeyClient((await keyFor(db, MEMBER)).key);
 		expect((await other.fetch('/api/v1/organisations')).status).toBe(200);
+	});
+
+	it('limits computations per caller, signed out by client address (429 + Retry-After)', async () => {
+		const caller = new Client();
+		const log = {
+			depthM: [0, 100, 200],
+			temperatureC: [10, 13, 16],
+			conductivity: [{ topM: 0, bottomM: 200, conductivityWmK: 2 }],
+			method: 'interval'
+		};
+		const statuses: number[] = [];
+		for (let i = 0; i < USER_RATE_RULES.computation.max; i++)
+			statuses.push((await caller.json('/api/v1/compute/heat-flow', log)).status);
+		expect(statuses.every((s) => s === 200)).toBe(true);
+		const over = await caller.json('/api/v1/compute/heat-flow', log);
+		expect(over.status).toBe(429);
+		expect(Number(over.headers.get('retry-after'))).toBeGreaterThanOrEqual(1);
+		expect(await errorCode(over)).toBe('rate_limited');
+		// Another address is counted alone.
+		expect((await new Client().json('/api/v1/compute/heat-flow', log)).status).toBe(200);
 	});
 
 	it('is not honoured outside /api/v1 and /ogc (a page stays signed out)', async () => {

@@ -3,6 +3,10 @@ import type { z } from 'zod';
 import { InputError } from '$lib/thermal';
 import { isUuid } from '$lib/uuid';
 import { contentResponse, errorResponse, etagOf, GEOJSON_TYPE, JSON_TYPE } from '../ogc/http';
+import { USER_RATE_RULES, type UserRateRule } from '../auth/rate-rules';
+import { clientAddress } from '../auth/client-address';
+import type { Db } from '../db/client';
+import { countAttempt, userRateKey } from '../rate-limit';
 import { CODE_BY_STATUS } from './error-body';
 
 /*
@@ -28,13 +32,17 @@ export function apiHandler<E extends RequestEvent>(handle: (event: E) => Promise
 		try {
 			return await handle(event);
 		} catch (err) {
-			if (err instanceof ApiFailure)
-				return errorResponse({
+			if (err instanceof ApiFailure) {
+				const response = errorResponse({
 					status: err.status,
 					code: err.code,
 					message: err.message,
 					details: err.details
 				});
+				if (typeof err.details.retryAfterS === 'number')
+					response.headers.set('retry-after', String(err.details.retryAfterS));
+				return response;
+			}
 			if (isHttpError(err))
 				return errorResponse({
 					status: err.status,
@@ -175,4 +183,24 @@ export function uuidCursor(text: string | undefined): [string, string] | null {
 			}
 		);
 	return key;
+}
+
+/**
+ * Count one call of a costly route for whoever asks (API key, account or client address) under
+ * a USER_RATE_RULES rule; over it, a 429 with Retry-After in the one error body.
+ */
+export async function limitCaller(db: Db, event: RequestEvent, rule: UserRateRule) {
+	const who = event.locals.apiKey
+		? `key:${event.locals.apiKey.id}`
+		: (event.locals.user?.id ?? `address:${clientAddress(event.request)}`);
+	const verdict = await countAttempt(db, userRateKey(who, rule), USER_RATE_RULES[rule]);
+	if (verdict.allowed) return;
+	throw new ApiFailure(
+		429,
+		'rate_limited',
+		`Too many requests; try again in ${verdict.retryAfterS} s.`,
+		{
+			retryAfterS: verdict.retryAfterS
+		}
+	);
 }

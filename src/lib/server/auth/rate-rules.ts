@@ -24,7 +24,10 @@ export type AuthRateRule = keyof typeof AUTH_RATE_RULES;
  * the wizard calls it once per file and mapping change.
  */
 export const USER_RATE_RULES = {
-	'import-preview': { windowS: 60, max: 30 }
+	'import-preview': { windowS: 60, max: 30 },
+	// A Monte Carlo geotherm of up to 5,000 samples costs a core up to a second; per caller (API
+	// key, account or, signed out, client address), on top of a key's own rate.
+	computation: { windowS: 60, max: 60 }
 } as const satisfies Record<string, RateRule>;
 
 export type UserRateRule = keyof typeof USER_RATE_RULES;
