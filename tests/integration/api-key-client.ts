@@ -49,5 +49,6 @@ export async function keyFor(
 	expiresAt: Date | null = null
 ) {
 	const [owner] = await db.select({ id: user.id }).from(user).where(eq(user.email, email));
-	return createApiKey(db, owner.id, { name: `test ${scopes.join('+')}`, scopes, expiresAt });
+	const viewer = { userId: owner.id, emailVerified: true, roles: {}, isPlatformAdmin: false };
+	return createApiKey(db, viewer, { name: `test ${scopes.join('+')}`, scopes, expiresAt });
 }

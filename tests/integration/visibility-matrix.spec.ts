@@ -257,7 +257,7 @@ const ROUTES: Record<string, Row> = {
 		]
 	},
 	'/(public)/help': { none: 'static help text' },
-	'/(public)/api': { none: 'static API documentation' },
+	'/(public)/api': { none: 'API reference generated from the OpenAPI document: no data' },
 	'/(auth)': { none: 'layout only' },
 	'/(auth)/sign-in': { none: 'accounts: tests/integration/account-abuse.spec.ts' },
 	'/(auth)/sign-up': { none: 'accounts: tests/e2e/accounts.e2e.ts' },

@@ -3,6 +3,8 @@ import type { Db } from '../db/client';
 import { apiKey, user } from '../db/schema';
 import { hashKey, newKeySecret } from '../api/key-secret';
 import type { ApiKeyScope } from '$lib/schemas/api-key';
+import type { Viewer } from '../access';
+import { recordAudit } from './audit';
 
 /** The owner's keys, newest first; never the hash. */
 export async function listApiKeys(db: Db, userId: string) {
@@ -23,35 +25,60 @@ export async function listApiKeys(db: Db, userId: string) {
 		.orderBy(desc(apiKey.createdAt));
 }
 
-/** A new key for `userId`; the returned `key` is the only time the secret exists in clear. */
+/**
+ * A new key for the signed-in viewer; the returned `key` is the only time the secret exists in
+ * clear. The audit log records the key's id, prefix and scopes, never the secret.
+ */
 export async function createApiKey(
 	db: Db,
-	userId: string,
+	viewer: Viewer,
 	input: { name: string; scopes: ApiKeyScope[]; expiresAt: Date | null }
 ): Promise<{ id: string; key: string; prefix: string }> {
+	const userId = viewer.userId;
+	if (!userId) throw new Error('createApiKey needs a signed-in viewer');
 	const secret = newKeySecret();
-	const [row] = await db
-		.insert(apiKey)
-		.values({
-			userId,
-			name: input.name,
-			prefix: secret.prefix,
-			keyHash: secret.hash,
-			scopes: [...new Set(input.scopes)],
-			expiresAt: input.expiresAt
-		})
-		.returning({ id: apiKey.id });
-	return { id: row.id, key: secret.key, prefix: secret.prefix };
+	const scopes = [...new Set(input.scopes)];
+	return db.transaction(async (tx) => {
+		const [row] = await tx
+			.insert(apiKey)
+			.values({
+				userId,
+				name: input.name,
+				prefix: secret.prefix,
+				keyHash: secret.hash,
+				scopes,
+				expiresAt: input.expiresAt
+			})
+			.returning({ id: apiKey.id });
+		await recordAudit(tx, viewer, {
+			action: 'api_key.create',
+			organisationId: null,
+			datasetId: null,
+			details: { keyId: row.id, prefix: secret.prefix, scopes, expiresAt: input.expiresAt }
+		});
+		return { id: row.id, key: secret.key, prefix: secret.prefix };
+	});
 }
 
-/** Revoke one of the owner's keys; false when it is not theirs or already revoked. */
-export async function revokeApiKey(db: Db, userId: string, id: string): Promise<boolean> {
-	const rows = await db
-		.update(apiKey)
-		.set({ revokedAt: new Date() })
-		.where(and(eq(apiKey.id, id), eq(apiKey.userId, userId), isNull(apiKey.revokedAt)))
-		.returning({ id: apiKey.id });
-	return rows.length > 0;
+/** Revoke one of the viewer's own keys; false when it is not theirs or already revoked. */
+export async function revokeApiKey(db: Db, viewer: Viewer, id: string): Promise<boolean> {
+	const userId = viewer.userId;
+	if (!userId) return false;
+	return db.transaction(async (tx) => {
+		const rows = await tx
+			.update(apiKey)
+			.set({ revokedAt: new Date() })
+			.where(and(eq(apiKey.id, id), eq(apiKey.userId, userId), isNull(apiKey.revokedAt)))
+			.returning({ id: apiKey.id, prefix: apiKey.prefix });
+		if (rows.length === 0) return false;
+		await recordAudit(tx, viewer, {
+			action: 'api_key.revoke',
+			organisationId: null,
+			datasetId: null,
+			details: { keyId: id, prefix: rows[0].prefix }
+		});
+		return true;
+	});
 }
 
 export interface ResolvedKey {

@@ -106,12 +106,12 @@ export const actions: Actions = {
 		return { form: 'sessions', revoked: true };
 	},
 	createKey: async (event) => {
-		const user = requireUser(event, 'action');
+		requireUser(event, 'action');
 		const parsed = parseForm(newApiKeySchema, await event.request.formData());
 		if (!parsed.ok) return fail(400, { ...parsed, form: 'apiKeys' });
 		const { name, access, lifetimeDays } = parsed.data;
 		const expiresAt = lifetimeDays ? new Date(Date.now() + lifetimeDays * 86_400_000) : null;
-		const created = await createApiKey(getDb(), user.id, {
+		const created = await createApiKey(getDb(), event.locals.viewer, {
 			name,
 			scopes: scopesFor(access),
 			expiresAt
@@ -120,9 +120,9 @@ export const actions: Actions = {
 		return { form: 'apiKeys', createdKey: created.key, createdName: name };
 	},
 	revokeKey: async (event) => {
-		const user = requireUser(event, 'action');
+		requireUser(event, 'action');
 		const id = String((await event.request.formData()).get('keyId') ?? '');
-		if (!isUuid(id) || !(await revokeApiKey(getDb(), user.id, id)))
+		if (!isUuid(id) || !(await revokeApiKey(getDb(), event.locals.viewer, id)))
 			return fail(404, {
 				form: 'apiKeys',
 				message: 'That key does not exist or is revoked already.'
