@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { Validator } from '@seriousme/openapi-schema-validator';
 import { Ajv2020 } from 'ajv/dist/2020.js';
+import { isFeatureCollection, valid } from 'geojson-validation';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { temperatureLog } from '../../src/lib/server/db/schema';
@@ -146,6 +147,14 @@ describe('every answer fits the document', () => {
 			'limit=5000'
 		])
 			await conforms('/sites', 'get', await script.fetch(`/api/v1/sites?${q}`));
+		// RFC 7946: the default answer is a FeatureCollection a GeoJSON reader accepts as it is.
+		const geojson = await (await script.fetch('/api/v1/sites?limit=20')).json();
+		expect(isFeatureCollection(geojson, true)).toEqual([]);
+		expect(geojson.features.length).toBeGreaterThan(0);
+		const feature = await (
+			await script.fetch(`/api/v1/sites/${fixture.open.sites[0]}?f=geojson`)
+		).json();
+		expect(valid(feature, true)).toEqual([]);
 		const site = fixture.open.sites[0];
 		for (const f of ['json', 'geojson'])
 			await conforms('/sites/{id}', 'get', await script.fetch(`/api/v1/sites/${site}?f=${f}`));
