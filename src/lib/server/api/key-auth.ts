@@ -9,7 +9,7 @@ import { keyFromHeaders } from './key-secret';
  * API keys on the machine interfaces. A key is honoured on /api/v1 and /ogc only (never on pages
  * or /api/auth, so a leaked key cannot change the account); there it replaces the session cookie.
  */
-export const KEY_PATHS = ['/api/v1/', '/ogc'];
+export const KEY_PATHS = ['/api/v1', '/ogc'];
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 /** POSTs that compute and store nothing: a read key may call them. */
@@ -18,7 +18,7 @@ const PURE_POSTS = ['/api/v1/compute/'];
 export const keyRateKey = (keyId: string) => `apikey|${keyId}`;
 
 export function takesKeys(pathname: string): boolean {
-	return KEY_PATHS.some((p) => pathname === p.replace(/\/$/, '') || pathname.startsWith(p));
+	return KEY_PATHS.some((base) => pathname === base || pathname.startsWith(`${base}/`));
 }
 
 function refusal(
