@@ -38,7 +38,7 @@ const errorCode = async (res: Response) =>
 describe('API keys on the account page', () => {
 	it('shows a new key once, stores only its hash, and revokes it', async () => {
 		const created = await member.post('/account?/createKey', {
-			name: 'script at home',
+			keyName: 'script at home',
 			access: 'read',
 			lifetimeDays: '30'
 		});

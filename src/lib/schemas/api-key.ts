@@ -9,7 +9,7 @@ export const API_KEY_LIFETIMES_DAYS = [30, 90, 365, 0] as const;
 
 /** The account page's "new API key" form. */
 export const newApiKeySchema = z.object({
-	name: z
+	keyName: z
 		.string()
 		.trim()
 		.min(1, 'Give the key a name (what it is for).')

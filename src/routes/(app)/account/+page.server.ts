@@ -109,7 +109,7 @@ export const actions: Actions = {
 		requireUser(event, 'action');
 		const parsed = parseForm(newApiKeySchema, await event.request.formData());
 		if (!parsed.ok) return fail(400, { ...parsed, form: 'apiKeys' });
-		const { name, access, lifetimeDays } = parsed.data;
+		const { keyName: name, access, lifetimeDays } = parsed.data;
 		const expiresAt = lifetimeDays ? new Date(Date.now() + lifetimeDays * 86_400_000) : null;
 		const created = await createApiKey(getDb(), event.locals.viewer, {
 			name,
