@@ -11,6 +11,8 @@ declare global {
 			session: import('$lib/server/auth/create-auth').Auth['$Infer']['Session']['session'] | null;
 			/** Set by handleError when PostgreSQL was unreachable; the response becomes a 503. */
 			databaseDown?: boolean;
+			/** The API key a request came with (then `session` is null), or null. */
+			apiKey: { id: string; scopes: string[] } | null;
 		}
 		// interface PageData {}
 		// interface PageState {}

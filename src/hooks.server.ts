@@ -23,6 +23,7 @@ import { nulRefusal } from '$lib/server/nul-guard';
 import { crossOriginRefusal } from '$lib/server/origin-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
 import { viewerFor } from '$lib/server/session-viewer';
+import { authenticateKey } from '$lib/server/api/key-auth';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {
@@ -90,6 +91,17 @@ const requestGuards: Handle = async ({ event, resolve }) =>
 
 const session: Handle = async ({ event, resolve }) => {
 	stampClientAddress(event);
+	event.locals.apiKey = null;
+	// An API key (on /api/v1 and /ogc only) stands for its owner instead of the session cookie.
+	const keyed = building ? { kind: 'none' as const } : await authenticateKey(getDb(), event);
+	if (keyed.kind === 'refused') return keyed.response;
+	if (keyed.kind === 'key') {
+		event.locals.user = keyed.key.owner;
+		event.locals.session = null;
+		event.locals.apiKey = { id: keyed.key.id, scopes: keyed.key.scopes };
+		event.locals.viewer = await viewerFor(getDb(), keyed.key.owner);
+		return resolve(event);
+	}
 	const current = building ? null : await auth().api.getSession({ headers: event.request.headers });
 	event.locals.user = current?.user ?? null;
 	event.locals.session = current?.session ?? null;

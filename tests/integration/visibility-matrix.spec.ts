@@ -18,6 +18,7 @@ import {
 	type NewDataset
 } from '../../src/lib/server/db/schema';
 import { createS3Client } from '../../src/lib/server/storage-client';
+import { KeyClient, keyFor } from './api-key-client';
 import { testEnv } from './env';
 import { Client, DEMO_PASSWORD, signIn } from './http';
 
@@ -288,6 +289,25 @@ type Row = { checks: Check[] } | { none: string };
 const statusOf = async (id: string) =>
 	(await db.select({ s: dataset.status }).from(dataset).where(eq(dataset.id, id)))[0].s;
 const get = (k: Kind, p: string) => clients[k].get(p);
+/** A read key of each signed-in kind's account, made on first use (anonymous has none). */
+const keys = new Map<Kind, Promise<KeyClient>>();
+const keyClient = (k: Kind) => {
+	if (!keys.has(k))
+		keys.set(
+			k,
+			keyFor(db, KINDS[k]!).then((made) => new KeyClient(made.key))
+		);
+	return keys.get(k)!;
+};
+/**
+ * The same GET as the viewer's browser session and as a script with their API key: a key must
+ * see exactly what its owner sees. Both answers are returned for the row to check alike.
+ */
+async function sessionAndKey(k: Kind, p: string): Promise<Response[]> {
+	const viaSession = await clients[k].json(p, undefined, 'GET', { accept: 'application/json' });
+	if (k === 'anonymous') return [viaSession];
+	return [viaSession, await (await keyClient(k)).fetch(p)];
+}
 const text = async (k: Kind, p: string) => (await get(k, p)).text();
 /**
  * Pages that list every case at once are fetched once per viewer kind and read for each case:
@@ -330,7 +350,7 @@ const ROUTES: Record<string, Row> = {
 	'/(public)/help/visibility': { none: 'static help text' },
 	'/(public)/help/citing': { none: 'static help text' },
 	'/(public)/help/models': { none: 'static help text' },
-	'/(public)/api': { none: 'static API documentation' },
+	'/(public)/api': { none: 'API reference generated from the OpenAPI document: no data' },
 	'/(auth)': { none: 'layout only' },
 	'/(auth)/sign-in': { none: 'accounts: tests/integration/account-abuse.spec.ts' },
 	'/(auth)/sign-up': { none: 'accounts: tests/e2e/accounts.e2e.ts' },
@@ -680,6 +700,16 @@ const ROUTES: Record<string, Row> = {
 					const found = (await res.json()).features.map((f: { id: string }) => f.id);
 					expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
 				}
+			},
+			{
+				name: "OGC items of all sites with the viewer's API key",
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const [, viaKey] = await sessionAndKey(k, `/ogc/collections/sites/items?bbox=${bbox}`);
+					if (!viaKey) return expect(k).toBe('anonymous');
+					const found = (await viaKey.json()).features.map((f: { id: string }) => f.id);
+					expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
+				}
 			}
 		]
 	},
@@ -745,6 +775,94 @@ const ROUTES: Record<string, Row> = {
 						expect(res.status).toBe(200);
 						if (file === 'grid.csv') expect(await res.text()).toContain(title(c));
 						else await res.arrayBuffer();
+					}
+				}
+			}
+		]
+	},
+	'/api/v1/openapi.json': { none: 'the OpenAPI document: static' },
+	'/api/v1/organisations': { none: 'public directory of organisations, no datasets' },
+	'/api/v1/compute/geotherm': { none: 'computes on the posted model; reads no stored data' },
+	'/api/v1/compute/heat-flow': { none: 'computes on the posted log; reads no stored data' },
+	'/api/v1/datasets': {
+		checks: [
+			{
+				name: 'dataset list (session and API key)',
+				run: async (k, c) => {
+					for (const res of await sessionAndKey(k, '/api/v1/datasets?limit=1000')) {
+						const found = (await res.json()).items.map((d: { id: string }) => d.id);
+						expect(found.includes(ids[c].dataset)).toBe(sees(k, c));
+					}
+				}
+			}
+		]
+	},
+	'/api/v1/datasets/[id=uuid]': {
+		checks: [
+			{
+				name: 'one dataset (session and API key)',
+				run: async (k, c) => {
+					for (const res of await sessionAndKey(k, `/api/v1/datasets/${ids[c].dataset}`)) {
+						if (!sees(k, c)) {
+							await expectHidden(res);
+							continue;
+						}
+						expect(res.status).toBe(200);
+						expect((await res.json()).title).toBe(title(c));
+					}
+				}
+			}
+		]
+	},
+	'/api/v1/sites': {
+		checks: [
+			{
+				name: 'site list in a box (session and API key)',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					for (const res of await sessionAndKey(
+						k,
+						`/api/v1/sites?f=json&limit=1000&bbox=${bbox}`
+					)) {
+						const found = (await res.json()).items.map((s: { id: string }) => s.id);
+						expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
+					}
+				}
+			}
+		]
+	},
+	'/api/v1/sites/[id=uuid]': {
+		checks: [
+			{
+				name: 'one site (session and API key)',
+				run: async (k, c) => {
+					for (const res of await sessionAndKey(k, `/api/v1/sites/${ids[c].site}`)) {
+						if (!sees(k, c)) {
+							await expectHidden(res);
+							continue;
+						}
+						expect(res.status).toBe(200);
+						expect((await res.json()).id).toBe(ids[c].site);
+					}
+				}
+			}
+		]
+	},
+	'/api/v1/sites/[id=uuid]/temperature-logs': {
+		checks: [
+			{
+				name: "a site's temperature logs (session and API key)",
+				run: async (k, c) => {
+					for (const res of await sessionAndKey(
+						k,
+						`/api/v1/sites/${ids[c].site}/temperature-logs`
+					)) {
+						if (!sees(k, c)) {
+							await expectHidden(res);
+							continue;
+						}
+						expect(res.status).toBe(200);
+						expect((await res.json()).items).toEqual([]);
 					}
 				}
 			}

@@ -27,7 +27,10 @@ export const USER_RATE_RULES = {
 	'import-preview': { windowS: 60, max: 30 },
 	// A new heat-flow grid costs a worker seconds of CPU; counted per user, or per client address
 	// for anonymous callers, and only when a new job is queued (a cached grid costs nothing).
-	'grid-job': { windowS: 600, max: 30 }
+	'grid-job': { windowS: 600, max: 30 },
+	// A Monte Carlo geotherm of up to 5,000 samples costs a core up to a second; per caller (API
+	// key, account or, signed out, client address), on top of a key's own rate.
+	computation: { windowS: 60, max: 60 }
 } as const satisfies Record<string, RateRule>;
 
 export type UserRateRule = keyof typeof USER_RATE_RULES;

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import { NOT_FOUND_MESSAGE } from '../access';
+import { errorBody } from '../api/error-body';
 
 /**
  * HTTP side of /ogc: media types, content negotiation, the one JSON error body, ETags and CORS.
@@ -27,7 +28,8 @@ export function preflight(): Response {
 		headers: {
 			...CORS_HEADERS,
 			'access-control-allow-methods': 'GET, HEAD, OPTIONS',
-			'access-control-allow-headers': 'Accept, Accept-Language, If-None-Match',
+			'access-control-allow-headers':
+				'Accept, Accept-Language, If-None-Match, Authorization, X-API-Key',
 			'access-control-max-age': '86400',
 			allow: 'GET, HEAD, OPTIONS'
 		}
@@ -43,8 +45,7 @@ export interface OgcError {
 
 /** The one error body: `{ "error": { "code", "message", "details" } }`. */
 export function errorResponse(e: OgcError): Response {
-	const body = { error: { code: e.code, message: e.message, details: e.details ?? {} } };
-	return new Response(JSON.stringify(body), {
+	return new Response(JSON.stringify(errorBody(e.code, e.message, e.details)), {
 		status: e.status,
 		headers: { ...CORS_HEADERS, 'content-type': JSON_TYPE, 'cache-control': 'no-store' }
 	});
@@ -116,7 +117,7 @@ export function contentResponse(
 		etag,
 		// Visibility depends on who asks: revalidate every time, never share one viewer's answer.
 		'cache-control': 'private, no-cache',
-		vary: 'Accept, Cookie'
+		vary: 'Accept, Cookie, Authorization, X-API-Key'
 	};
 	if (notModified(request.headers.get('if-none-match'), etag))
 		return new Response(null, { status: 304, headers });

@@ -6,7 +6,7 @@ import { MIN_GRID_SITES, type GridRequest } from '$lib/grids/request';
 import { notFound, requireUuid, visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { dataset, grid, organisation, site, type Grid } from '../db/schema';
-import { filterConditions } from './sites';
+import { siteFilterConditions } from './sites';
 
 /** A site as a grid job uses it: where (lon/lat and projected metres), what, from which dataset. */
 export interface GridSample {
@@ -45,7 +45,7 @@ async function visibleGridSites(db: Db, viewer: Viewer, req: GridRequest) {
 				sql`${site.location} && ${envelope}`,
 				isNotNull(site.heatFlowMWm2),
 				visibleOnMaps(viewer),
-				...filterConditions({ ...req.filters, page: 1 })
+				...siteFilterConditions({ ...req.filters, page: 1 })
 			)
 		)
 		.orderBy(asc(site.id));

@@ -46,7 +46,7 @@ const siteSummaryColumns = {
 } satisfies Record<keyof SiteSummary, unknown>;
 
 /** The shared site filters ($lib/sites/filters.ts) as SQL; `page` is the caller's business. */
-export function filterConditions(f: SiteFilters): SQL[] {
+export function siteFilterConditions(f: SiteFilters): SQL[] {
 	const conditions: SQL[] = [];
 	if (f.quality.length) conditions.push(inArray(site.qualityClass, f.quality));
 	if (f.method.length) conditions.push(inArray(site.method, f.method));
@@ -77,7 +77,11 @@ export async function visibleSitesInBox(
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
 		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
 		.where(
-			and(sql`${site.location} && ${envelope}`, visibleOnMaps(viewer), ...filterConditions(filters))
+			and(
+				sql`${site.location} && ${envelope}`,
+				visibleOnMaps(viewer),
+				...siteFilterConditions(filters)
+			)
 		)
 		.orderBy(asc(site.code))
 		.limit(limit);
@@ -102,7 +106,7 @@ export async function listDatasetSites(
 	const where = and(
 		eq(site.datasetId, datasetId),
 		visibleDatasets(viewer),
-		...filterConditions(query)
+		...siteFilterConditions(query)
 	);
 	const order = query.dir === 'desc' ? desc(SORTS[query.sort]) : asc(SORTS[query.sort]);
 	const [rows, [{ total }]] = await Promise.all([

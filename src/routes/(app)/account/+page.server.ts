@@ -5,6 +5,9 @@ import { authFailure } from '$lib/server/auth/errors';
 import { getDb } from '$lib/server/db';
 import { requireUser } from '$lib/server/guards';
 import { listMyOrganisations } from '$lib/server/repositories/organisations';
+import { createApiKey, listApiKeys, revokeApiKey } from '$lib/server/repositories/api-keys';
+import { newApiKeySchema, scopesFor } from '$lib/schemas/api-key';
+import { isUuid } from '$lib/uuid';
 import { parseForm } from '$lib/schemas/form';
 import { changePasswordSchema, emailOnlySchema, profileSchema } from '$lib/schemas/account';
 import type { Actions, PageServerLoad } from './$types';
@@ -13,12 +16,21 @@ export const load: PageServerLoad = async (event) => {
 	const user = requireUser(event);
 	const sessions = await auth().api.listSessions({ headers: event.request.headers });
 	const memberships = await listMyOrganisations(getDb(), event.locals.viewer);
+	const apiKeys = await listApiKeys(getDb(), user.id);
 	const currentId = event.locals.session?.id;
 	return {
 		passwordChanged: event.url.searchParams.get('password') === 'changed',
 		profile: { name: user.name, email: user.email, emailVerified: user.emailVerified },
 		activeOrganisationId: event.locals.session?.activeOrganizationId ?? null,
 		memberships,
+		// The hash never leaves the server; the page shows the prefix only.
+		apiKeys: apiKeys.map((k) => ({
+			...k,
+			expiresAt: k.expiresAt?.toISOString() ?? null,
+			lastUsedAt: k.lastUsedAt?.toISOString() ?? null,
+			revokedAt: k.revokedAt?.toISOString() ?? null,
+			createdAt: k.createdAt.toISOString()
+		})),
 		// Never send session tokens to the page; actions look them up by id.
 		sessions: sessions.map((s) => ({
 			id: s.id,
@@ -92,6 +104,30 @@ export const actions: Actions = {
 			headers: event.request.headers
 		});
 		return { form: 'sessions', revoked: true };
+	},
+	createKey: async (event) => {
+		requireUser(event, 'action');
+		const parsed = parseForm(newApiKeySchema, await event.request.formData());
+		if (!parsed.ok) return fail(400, { ...parsed, form: 'apiKeys' });
+		const { keyName: name, access, lifetimeDays } = parsed.data;
+		const expiresAt = lifetimeDays ? new Date(Date.now() + lifetimeDays * 86_400_000) : null;
+		const created = await createApiKey(getDb(), event.locals.viewer, {
+			name,
+			scopes: scopesFor(access),
+			expiresAt
+		});
+		// Shown once: only this answer carries the key; the database keeps its hash.
+		return { form: 'apiKeys', createdKey: created.key, createdName: name };
+	},
+	revokeKey: async (event) => {
+		requireUser(event, 'action');
+		const id = String((await event.request.formData()).get('keyId') ?? '');
+		if (!isUuid(id) || !(await revokeApiKey(getDb(), event.locals.viewer, id)))
+			return fail(404, {
+				form: 'apiKeys',
+				message: 'That key does not exist or is revoked already.'
+			});
+		return { form: 'apiKeys', revokedKey: true };
 	},
 	revokeOthers: async (event) => {
 		requireUser(event, 'action');

@@ -9,3 +9,4 @@ export * from './files';
 export * from './audit';
 export * from './grids';
 export * from './access';
+export * from './api-keys';

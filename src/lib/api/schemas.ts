@@ -1,0 +1,305 @@
+import { z } from 'zod';
+import { HEAT_FLOW_METHODS } from '$lib/sites/methods';
+import { QUALITY_CLASSES } from '$lib/sites/quality';
+
+/**
+ * The schemas of /api/v1: requests are parsed with them, and the OpenAPI document
+ * (src/lib/server/api/openapi.ts) is generated from them, so the document cannot drift from what
+ * the routes accept and answer. Shared with the browser (the geotherm panel posts a model).
+ */
+
+// ---- common -------------------------------------------------------------------------------
+
+export const errorSchema = z
+	.object({
+		error: z.object({
+			code: z.string().meta({ description: 'Stable word a script can branch on.' }),
+			message: z.string().meta({ description: 'For people.' }),
+			details: z.record(z.string(), z.unknown()).meta({ description: 'What was wrong.' })
+		})
+	})
+	.meta({ id: 'Error', description: 'The one error body of /api/v1 and /ogc.' });
+
+/** Longest page; a larger `limit` is a 400 (unlike /ogc, where the standard wants it capped). */
+export const MAX_PAGE_LIMIT = 1000;
+export const DEFAULT_PAGE_LIMIT = 100;
+
+const limit = z.coerce
+	.number()
+	.int()
+	.min(1)
+	.max(MAX_PAGE_LIMIT)
+	.default(DEFAULT_PAGE_LIMIT)
+	.meta({ description: `Items per page, 1 to ${MAX_PAGE_LIMIT}.` });
+const cursor = z
+	.string()
+	.max(400)
+	.optional()
+	.meta({ description: 'Opaque position from the `next` of the previous page.' });
+
+const pageInfo = {
+	next: z
+		.string()
+		.nullable()
+		.meta({ description: 'Cursor of the next page; null on the last page.' }),
+	limit: z.number().int()
+};
+
+// ---- organisations ------------------------------------------------------------------------
+
+export const organisationSchema = z
+	.object({
+		id: z.string(),
+		name: z.string(),
+		slug: z.string(),
+		country: z.string().nullable(),
+		website: z.string().nullable(),
+		description: z.string().nullable()
+	})
+	.meta({ id: 'Organisation' });
+
+export const organisationsQuery = z.strictObject({ limit, cursor });
+
+export const organisationPageSchema = z
+	.object({ items: z.array(organisationSchema), ...pageInfo })
+	.meta({ id: 'OrganisationPage' });
+
+// ---- datasets -----------------------------------------------------------------------------
+
+export const datasetSchema = z
+	.object({
+		id: z.uuid(),
+		title: z.string(),
+		abstract: z.string(),
+		keywords: z.array(z.string()),
+		organisationId: z.string(),
+		organisationName: z.string(),
+		licence: z.string(),
+		version: z.number().int(),
+		status: z.enum(['draft', 'in_review', 'returned', 'published', 'retired']),
+		visibility: z.string(),
+		embargoUntil: z.string().nullable(),
+		doi: z.string().nullable(),
+		citation: z.object({
+			text: z.string().meta({ description: 'How to cite the dataset, as its curators wrote it.' }),
+			doi: z.string().nullable(),
+			url: z.string().meta({ description: 'Address of the dataset page.' })
+		}),
+		sites: z.number().int(),
+		updatedAt: z.string().meta({ format: 'date-time' })
+	})
+	.meta({ id: 'Dataset' });
+
+export const datasetsQuery = z.strictObject({
+	limit,
+	cursor,
+	organisation: z.string().max(200).optional().meta({ description: 'Organisation id.' })
+});
+
+export const datasetPageSchema = z
+	.object({ items: z.array(datasetSchema), ...pageInfo })
+	.meta({ id: 'DatasetPage' });
+
+// ---- sites --------------------------------------------------------------------------------
+
+export const SITE_SORTS = ['id', 'code'] as const;
+
+export const sitesQuery = z.strictObject({
+	limit,
+	cursor,
+	sort: z.enum(SITE_SORTS).default('id').meta({ description: 'Order of the pages (stable).' }),
+	order: z.enum(['asc', 'desc']).default('asc'),
+	f: z
+		.enum(['geojson', 'json'])
+		.default('geojson')
+		.meta({ description: 'GeoJSON FeatureCollection (RFC 7946) or plain JSON.' }),
+	bbox: z
+		.string()
+		.optional()
+		.meta({ description: 'west,south,east,north in WGS 84 degrees.', example: '5,50,15,60' }),
+	dataset: z.uuid().optional().meta({ description: 'Only the sites of this dataset.' }),
+	quality: z
+		.string()
+		.optional()
+		.meta({ description: `Comma list of quality classes: ${QUALITY_CLASSES.join(', ')}.` }),
+	method: z
+		.string()
+		.optional()
+		.meta({ description: `Comma list of methods: ${HEAT_FLOW_METHODS.join(', ')}.` }),
+	minHeatFlow: z.coerce.number().optional().meta({ description: 'mW/m², inclusive.' }),
+	maxHeatFlow: z.coerce.number().optional().meta({ description: 'mW/m², inclusive.' }),
+	q: z.string().max(100).optional().meta({ description: 'Site code or name contains.' })
+});
+
+export const siteSchema = z
+	.object({
+		id: z.uuid(),
+		code: z.string(),
+		name: z.string().nullable(),
+		lon: z.number(),
+		lat: z.number(),
+		heatFlowMWm2: z.number().nullable(),
+		heatFlowSigmaMWm2: z.number().nullable(),
+		method: z.string(),
+		qualityClass: z.string().nullable(),
+		yearMeasured: z.number().int().nullable(),
+		datasetId: z.uuid(),
+		datasetTitle: z.string(),
+		organisationName: z.string()
+	})
+	.meta({ id: 'Site' });
+
+const { lon: _lon, lat: _lat, ...siteProperties } = siteSchema.shape;
+
+export const siteFeatureSchema = z
+	.object({
+		type: z.literal('Feature'),
+		id: z.uuid(),
+		geometry: z.object({
+			type: z.literal('Point'),
+			coordinates: z.array(z.number()).min(2).max(2)
+		}),
+		properties: z.object(siteProperties)
+	})
+	.meta({ id: 'SiteFeature' });
+
+export const siteFeatureCollectionSchema = z
+	.object({
+		type: z.literal('FeatureCollection'),
+		features: z.array(siteFeatureSchema),
+		...pageInfo
+	})
+	.meta({ id: 'SiteFeatureCollection', description: 'RFC 7946, with `next` and `limit` members.' });
+
+export const sitePageSchema = z
+	.object({ items: z.array(siteSchema), ...pageInfo })
+	.meta({ id: 'SitePage' });
+
+export const siteQuery = z.strictObject({
+	f: z.enum(['geojson', 'json']).default('json')
+});
+
+export const temperatureLogSchema = z
+	.object({
+		id: z.uuid(),
+		siteId: z.uuid(),
+		name: z.string(),
+		depthM: z.array(z.number()),
+		temperatureC: z.array(z.number()),
+		createdAt: z.string().meta({ format: 'date-time' })
+	})
+	.meta({ id: 'TemperatureLog' });
+
+export const temperatureLogsSchema = z
+	.object({ items: z.array(temperatureLogSchema) })
+	.meta({ id: 'TemperatureLogList' });
+
+// ---- computations -------------------------------------------------------------------------
+
+const positive = z.number().positive();
+const finite = z.number();
+
+export const crustLayerSchema = z
+	.object({
+		thicknessM: positive,
+		conductivityWmK: positive.meta({ description: 'At 0 °C.' }),
+		heatProductionUWm3: z.number().min(0).meta({ description: 'At the top of the layer.' }),
+		heatProductionDecayM: positive.optional(),
+		conductivityTempCoeffPerK: z.number().min(0).optional(),
+		conductivitySigmaWmK: z.number().min(0).optional().meta({ description: '1-σ, for the band.' }),
+		heatProductionSigmaUWm3: z
+			.number()
+			.min(0)
+			.optional()
+			.meta({ description: '1-σ, for the band.' })
+	})
+	.meta({ id: 'CrustLayer' });
+
+/** Most Monte Carlo samples one request may ask for (one core for well under a second). */
+export const MAX_API_SAMPLES = 5000;
+
+export const geothermRequestSchema = z
+	.object({
+		surfaceTemperatureC: finite,
+		surfaceHeatFlowMWm2: positive.optional(),
+		basalHeatFlowMWm2: z.number().min(0).optional(),
+		heatFlowSigmaMWm2: z.number().min(0).default(0),
+		layers: z.array(crustLayerSchema).min(1).max(20),
+		depthStepM: z.number().min(10).max(10_000).default(500),
+		samples: z.number().int().min(2).max(MAX_API_SAMPLES).default(1000),
+		seed: z.number().int().default(1),
+		isothermsC: z.array(finite).max(10).default([])
+	})
+	.refine((v) => (v.surfaceHeatFlowMWm2 === undefined) !== (v.basalHeatFlowMWm2 === undefined), {
+		message: 'Give exactly one of surfaceHeatFlowMWm2 and basalHeatFlowMWm2.',
+		path: ['surfaceHeatFlowMWm2']
+	})
+	.meta({ id: 'GeothermRequest', description: 'A 1-D conductive crustal model.' });
+
+const triple = z.object({ p10: z.number(), p50: z.number(), p90: z.number() });
+
+export const geothermResponseSchema = z
+	.object({
+		depthM: z.array(z.number()),
+		temperatureC: z.array(z.number()).meta({ description: 'Central model.' }),
+		heatFlowMWm2: z.array(z.number()),
+		band: z.object({
+			p10C: z.array(z.number()),
+			p50C: z.array(z.number()),
+			p90C: z.array(z.number()),
+			surfaceHeatFlowMWm2: triple,
+			basalHeatFlowMWm2: triple,
+			isotherms: z.array(
+				z.object({
+					temperatureC: z.number(),
+					p10M: z.number().nullable(),
+					p50M: z.number().nullable(),
+					p90M: z.number().nullable(),
+					fractionReached: z.number()
+				})
+			),
+			samples: z.number().int(),
+			seed: z.number().int()
+		}),
+		surfaceHeatFlowMWm2: z.number(),
+		basalHeatFlowMWm2: z.number(),
+		warnings: z.array(z.string()),
+		caution: z.string()
+	})
+	.meta({ id: 'GeothermResponse', description: 'P10 is the cooler (10th percentile) edge.' });
+
+export const heatFlowRequestSchema = z
+	.object({
+		depthM: z.array(finite).min(3).max(100_000),
+		temperatureC: z.array(finite).min(3).max(100_000),
+		conductivity: z
+			.array(
+				z.object({
+					topM: finite,
+					bottomM: finite,
+					conductivityWmK: positive,
+					sigmaWmK: z.number().min(0).optional()
+				})
+			)
+			.min(1)
+			.max(10_000),
+		method: z.enum(['interval', 'bullard']),
+		fromM: finite.optional(),
+		toM: finite.optional()
+	})
+	.meta({ id: 'HeatFlowRequest', description: 'A temperature log and conductivities.' });
+
+export const heatFlowResponseSchema = z
+	.object({
+		heatFlowMWm2: z.number(),
+		sigmaMWm2: z.number(),
+		gradientKPerKm: z.number(),
+		sigmaGradientKPerKm: z.number(),
+		meanConductivityWmK: z.number(),
+		interceptC: z.number(),
+		samples: z.number().int()
+	})
+	.meta({ id: 'HeatFlowResponse' });
+
+export type GeothermRequest = z.input<typeof geothermRequestSchema>;
+export type GeothermResponse = z.output<typeof geothermResponseSchema>;
