@@ -9,6 +9,7 @@ import { closeDb, getDb } from '$lib/server/db';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
+import { startImportWorker } from '$lib/server/jobs/import-queue';
 import { closeMailer, startMailWorker } from '$lib/server/mail';
 import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
@@ -26,10 +27,14 @@ export const init: ServerInit = async () => {
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
-		// Queued jobs (mail, the hourly housekeeping) are taken by this process; a queue that is not reachable yet is retried
+		// Queued jobs (mail, the hourly housekeeping, imports) are taken by this process; a queue that is not reachable yet is retried
 		// by pg-boss once it is, and must not keep the app from starting.
 		startMailWorker()
-			.then(async () => startHousekeeping(await jobs(config().DATABASE_URL), getDb()))
+			.then(async () => {
+				const boss = await jobs(config().DATABASE_URL);
+				await startHousekeeping(boss, getDb());
+				await startImportWorker(boss, getDb());
+			})
 			.catch((err) => console.warn('job workers not started:', err.message));
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.

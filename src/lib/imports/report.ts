@@ -1,4 +1,4 @@
-// The preview's issues as a downloadable CSV (row, severity, column, message).
+// The preview's issues as a downloadable CSV (row, site code, severity, column, message).
 
 import Papa from 'papaparse';
 import type { ImportIssue } from './types';
@@ -8,9 +8,10 @@ export function issuesToCsv(issues: readonly ImportIssue[]): string {
 	return (
 		Papa.unparse(
 			{
-				fields: ['row', 'severity', 'column', 'message'],
+				fields: ['row', 'code', 'severity', 'column', 'message'],
 				data: issues.map((i) => [
 					i.row === null ? '' : String(i.row),
+					i.siteCode ?? '',
 					i.severity,
 					i.column,
 					i.message

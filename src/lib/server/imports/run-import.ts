@@ -1,86 +1,93 @@
-import { error } from '@sveltejs/kit';
-import { eq, sql } from 'drizzle-orm';
-import type { Viewer } from '../access';
+import { and, eq, sql } from 'drizzle-orm';
+import type { SiteDraft } from '$lib/imports';
 import type { Db } from '../db/client';
-import { importBatch, site, type NewSite } from '../db/schema';
-import type { ImportPayload } from './payload';
-import { serverPreview } from './server-preview';
+import { importBatch } from '../db/schema';
+import { INSERT_CHUNK_ROWS, insertSiteChunk } from './bulk-insert';
 
-const CHUNK_ROWS = 1000;
+/** A running import whose heartbeat is older than this lost its worker (killed, crashed). */
+export const IMPORT_HEARTBEAT_STALE_S = 60;
+/** A batch taken this many times without finishing is failed instead of tried again. */
+export const IMPORT_MAX_ATTEMPTS = 3;
+
+export interface RunOptions {
+	staleAfterS?: number;
+	/** Called inside the transaction after each chunk (tests use it to stop a worker mid-way). */
+	afterChunk?: (done: number, total: number) => Promise<void>;
+}
+
+export type RunOutcome = 'done' | 'failed' | 'skipped';
 
 /**
- * Validate again and, when nothing blocks, insert every accepted row in ONE transaction, in the
- * background. Progress is written to import_batch from outside the transaction, so any app
- * instance can report it; a failure rolls the whole file back and records why.
+ * Write a queued batch's sites in ONE transaction, in chunks of INSERT_CHUNK_ROWS, and mark it
+ * done in the same transaction, so the sites and the "done" are committed together or not at
+ * all. Progress and a heartbeat are written from outside the transaction after each chunk.
+ *
+ * A batch is taken only when it is queued, or running with a stale heartbeat (its worker died:
+ * PostgreSQL rolled its transaction back when the connection closed), so a job delivered twice
+ * writes once. A failure rolls everything back and is recorded on the batch with a clear message.
  */
-export async function startImport(
+export async function runImportBatch(
 	db: Db,
-	viewer: Viewer,
-	datasetId: string,
-	payload: ImportPayload
-) {
-	const { preview, previousImport } = await serverPreview(db, viewer, datasetId, payload);
-	if (!preview.canImport || preview.errorCount > 0) {
-		error(
-			400,
-			`${preview.errorCount} rows have errors; fix them (see the preview report) and import again. Nothing was written.`
-		);
-	}
-	if (previousImport && !payload.allowReimport) {
-		error(
-			409,
-			`This file was imported into this dataset on ${previousImport.at.toISOString().slice(0, 10)}. Confirm to import it again.`
-		);
-	}
-	const rows: NewSite[] = preview.rows.flatMap((r) => (r.site ? [{ ...r.site, datasetId }] : []));
-	const [batch] = await db
-		.insert(importBatch)
-		.values({
-			datasetId,
-			fileName: payload.fileName,
-			fileSha256: payload.sha256,
-			totalRows: rows.length,
-			createdBy: viewer.userId
+	batchId: string,
+	options: RunOptions = {}
+): Promise<RunOutcome> {
+	const staleAfterS = options.staleAfterS ?? IMPORT_HEARTBEAT_STALE_S;
+	const [taken] = await db
+		.update(importBatch)
+		.set({
+			status: 'running',
+			attempts: sql`${importBatch.attempts} + 1`,
+			heartbeatAt: sql`now()`,
+			doneRows: 0
 		})
-		.returning({ id: importBatch.id });
-	void insertAll(db, batch.id, datasetId, rows);
-	return { batchId: batch.id, rows: rows.length, warnings: preview.warningCount };
-}
-
-/** Insert sites in one transaction, in chunks, calling onChunk (outside the transaction) after each. */
-export async function insertSites(
-	db: Db,
-	datasetId: string,
-	rows: NewSite[],
-	onChunk: (done: number) => Promise<void>
-) {
-	await db.transaction(async (tx) => {
-		for (let i = 0; i < rows.length; i += CHUNK_ROWS) {
-			await tx.insert(site).values(rows.slice(i, i + CHUNK_ROWS));
-			await onChunk(Math.min(rows.length, i + CHUNK_ROWS));
-		}
-		await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${datasetId}`);
-	});
-}
-
-async function insertAll(db: Db, batchId: string, datasetId: string, rows: NewSite[]) {
-	try {
-		await insertSites(db, datasetId, rows, async (done) => {
-			await db.update(importBatch).set({ doneRows: done }).where(eq(importBatch.id, batchId));
+		.where(
+			and(
+				eq(importBatch.id, batchId),
+				sql`(${importBatch.status} = 'queued' OR (${importBatch.status} = 'running' AND ${importBatch.heartbeatAt} < now() - make_interval(secs => ${staleAfterS})))`
+			)
+		)
+		.returning({
+			attempts: importBatch.attempts,
+			datasetId: importBatch.datasetId,
+			sites: importBatch.sites
 		});
-		await db
-			.update(importBatch)
-			.set({ status: 'done', finishedAt: new Date() })
-			.where(eq(importBatch.id, batchId));
-	} catch (err) {
-		console.error(`[import ${batchId}] rolled back`, err);
-		const message =
-			(err as { code?: string }).code === '23505'
-				? 'A site code in the file was added to the dataset meanwhile; nothing was written.'
-				: 'The import failed and was rolled back; nothing was written.';
+	if (!taken) return 'skipped';
+	const fail = async (message: string) => {
 		await db
 			.update(importBatch)
 			.set({ status: 'failed', error: message, doneRows: 0, finishedAt: new Date() })
 			.where(eq(importBatch.id, batchId));
+		return 'failed' as const;
+	};
+	if (taken.attempts > IMPORT_MAX_ATTEMPTS)
+		return fail(
+			`The import was interrupted ${IMPORT_MAX_ATTEMPTS} times and has stopped; nothing was written. Import the file again.`
+		);
+	const rows = (taken.sites ?? []) as SiteDraft[];
+	try {
+		await db.transaction(async (tx) => {
+			for (let i = 0; i < rows.length; i += INSERT_CHUNK_ROWS) {
+				await insertSiteChunk(tx, taken.datasetId, batchId, rows.slice(i, i + INSERT_CHUNK_ROWS));
+				const done = Math.min(rows.length, i + INSERT_CHUNK_ROWS);
+				await db
+					.update(importBatch)
+					.set({ doneRows: done, heartbeatAt: sql`now()` })
+					.where(eq(importBatch.id, batchId));
+				await options.afterChunk?.(done, rows.length);
+			}
+			await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${taken.datasetId}`);
+			await tx
+				.update(importBatch)
+				.set({ status: 'done', doneRows: rows.length, finishedAt: new Date(), sites: null })
+				.where(eq(importBatch.id, batchId));
+		});
+		return 'done';
+	} catch (err) {
+		console.error(`[import ${batchId}] rolled back`, err);
+		return fail(
+			(err as { code?: string }).code === '23505'
+				? 'A site code in the file was added to the dataset meanwhile; nothing was written.'
+				: 'The import failed and was rolled back; nothing was written.'
+		);
 	}
 }

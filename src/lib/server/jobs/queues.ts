@@ -8,7 +8,11 @@ import type PgBoss from 'pg-boss';
 export const QUEUES = {
 	mail: { name: 'mail', retryLimit: 10, retryDelay: 10, retryBackoff: true, expireInSeconds: 120 },
 	// Periodic clean-up (expired pending uploads); a missed run is simply done by the next one.
-	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 }
+	housekeeping: { name: 'housekeeping', retryLimit: 1, expireInSeconds: 600 },
+	// Writing an import's sites (one transaction, 100 000 rows in well under a minute). A crashed
+	// worker's job comes back after its expiry; the batch itself is also re-queued at start
+	// (import-queue.ts), and fails visibly after IMPORT_MAX_ATTEMPTS takes.
+	import: { name: 'import', retryLimit: 3, retryDelay: 30, expireInSeconds: 900 }
 } as const satisfies Record<string, PgBoss.Queue>;
 
 /** Cron schedules (pg-boss keeps one per queue, whichever instance sets it; UTC). */

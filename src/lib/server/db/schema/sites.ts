@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	type AnyPgColumn,
 	doublePrecision,
 	index,
 	integer,
@@ -16,6 +17,9 @@ import { HEAT_FLOW_METHODS } from '../../../sites/methods';
 import { QUALITY_CLASSES } from '../../../sites/quality';
 import { pointWgs84 } from '../point';
 import { dataset } from './datasets';
+// A cycle with files.ts is fine: references are resolved lazily.
+import { importBatch } from './files';
+import type { SiteFlag } from '../../../sites/flags';
 
 /** How the heat flow was determined (the trade's own categories). */
 export const heatFlowMethod = pgEnum('heat_flow_method', HEAT_FLOW_METHODS);
@@ -62,12 +66,17 @@ export const site = pgTable(
 		remarks: text(),
 		/** The product's own quality class, computed from uncertainty, method and sample count. */
 		qualityClass: qualityClassEnum(),
+		/** Warnings imported anyway (`src/lib/sites/flags.ts`); a map filter can use them. */
+		flags: text().array().$type<SiteFlag[]>().notNull().default([]),
+		/** The import that created the site (its file, corrections and exclusions), if any. */
+		importBatchId: uuid().references((): AnyPgColumn => importBatch.id, { onDelete: 'set null' }),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},
 	(t) => [
 		uniqueIndex('site_dataset_code_idx').on(t.datasetId, t.code),
 		index('site_location_gist').using('gist', t.location),
+		index('site_flags_gin').using('gin', t.flags),
 		// Distance searches in metres cast to geography; a plain geometry index is not used for them.
 		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`)
 	]
