@@ -44,17 +44,19 @@ const FIRST_ROWS_SHOWN = 25;
 const BLOCKED_ROWS_SHOWN = 500;
 
 /** The upload right on the dataset, checked on every step (rights may change between steps). */
-async function requireUploadRight(db: Db, viewer: Viewer, datasetId: string) {
+export async function requireUploadRight(db: Db, viewer: Viewer, datasetId: string) {
 	const found = await datasetForViewer(db, viewer, datasetId);
 	requireUpload(found);
 	return found;
 }
 
+export type ChangeableBatch = typeof importBatch.$inferSelect;
+
 /**
  * A batch its creator may still work on: anyone else (and an unknown id) gets the same 404, and
  * the upload right on its dataset is checked again.
  */
-export async function batchForChange(db: Db, viewer: Viewer, id: string) {
+export async function batchForChange(db: Db, viewer: Viewer, id: string): Promise<ChangeableBatch> {
 	const [batch] = await db.select().from(importBatch).where(eq(importBatch.id, id));
 	if (!batch || !viewer.userId || batch.createdBy !== viewer.userId) notFound();
 	await requireUploadRight(db, viewer, batch.datasetId);
@@ -209,11 +211,10 @@ async function addNearExisting(
 export async function previewImport(
 	db: Db,
 	viewer: Viewer,
-	batchId: string,
+	batch: ChangeableBatch,
 	settings: ImportSettings,
 	edits: RowEdits
 ): Promise<PreviewResponse> {
-	const batch = await batchForChange(db, viewer, batchId);
 	if (batch.status !== 'draft' && batch.status !== 'failed')
 		error(409, `This import is ${batch.status}; it can no longer be changed.`);
 	return previewBatchAs(db, viewer, batch, settings, edits);
@@ -223,7 +224,7 @@ export async function previewImport(
 export async function previewBatchAs(
 	db: Db,
 	viewer: Viewer,
-	batch: typeof importBatch.$inferSelect,
+	batch: ChangeableBatch,
 	settings: ImportSettings,
 	edits: RowEdits
 ): Promise<PreviewResponse> {
@@ -349,12 +350,11 @@ function previewView(
  */
 export async function commitImport(
 	db: Db,
-	viewer: Viewer,
-	batchId: string,
+	batch: ChangeableBatch,
 	request: { revision: number; allowReimport: boolean },
 	enqueue: (batchId: string) => Promise<void>
 ) {
-	const batch = await batchForChange(db, viewer, batchId);
+	const batchId = batch.id;
 	if (batch.status !== 'draft') error(409, `This import is ${batch.status} already.`);
 	if (batch.revision !== request.revision)
 		error(409, 'The preview changed meanwhile (another tab?); check the rows again.');

@@ -10,7 +10,11 @@ export interface ImportJob {
 }
 
 /** Queue a committed batch for writing. */
-export async function enqueueImport(boss: PgBoss, batchId: string, queue = QUEUES.import.name) {
+export async function enqueueImport(
+	boss: PgBoss,
+	batchId: string,
+	queue: string = QUEUES.import.name
+) {
 	await boss.send(queue, { batchId } satisfies ImportJob);
 }
 

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { getDb } from '$lib/server/db';
 import { parseBody, requireUser } from '$lib/server/guards';
-import { startImport } from '$lib/server/imports/batches';
+import { requireUploadRight, startImport } from '$lib/server/imports/batches';
 import { startImportSchema } from '$lib/schemas/imports';
 import type { RequestHandler } from './$types';
 
@@ -12,6 +12,8 @@ import type { RequestHandler } from './$types';
  */
 export const POST: RequestHandler = async (event) => {
 	requireUser(event, 'action');
+	// The right first, so a hidden dataset is a 404 whatever the body.
+	await requireUploadRight(getDb(), event.locals.viewer, event.params.id);
 	const body = await parseBody(event, startImportSchema);
 	return json(await startImport(getDb(), event.locals.viewer, event.params.id, body.attachmentId), {
 		status: 201
