@@ -49,6 +49,7 @@ try {
 		.values({ organisationId: orgId, title: 'bench', licence: 'CC0-1.0' })
 		.returning({ id: dataset.id });
 	const bytes = new TextEncoder().encode(inventedCsv());
+	const sha256 = randomUUID();
 
 	const t0 = performance.now();
 	const uploaded = await draftFromBytes(
@@ -57,13 +58,23 @@ try {
 			datasetId: ds.id,
 			attachmentId: null,
 			fileName: 'bench.csv',
-			sha256: randomUUID(),
+			sha256,
 			createdBy: null
 		},
 		bytes
 	);
 	const t1 = performance.now();
-	const [batch] = await db.select().from(importBatch).where(eq(importBatch.id, uploaded.batchId));
+	const batch = {
+		id: uploaded.batchId,
+		datasetId: ds.id,
+		fileName: 'bench.csv',
+		fileSha256: sha256,
+		status: 'draft' as const,
+		revision: 0,
+		preview: null,
+		createdBy: null,
+		hasSites: false
+	};
 	const preview = await previewBatchAs(
 		db,
 		ANONYMOUS,

@@ -1,6 +1,6 @@
 import { GetObjectCommand } from '@aws-sdk/client-s3';
 import { error } from '@sveltejs/kit';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import {
 	applyEdits,
 	buildPreview,
@@ -50,14 +50,32 @@ export async function requireUploadRight(db: Db, viewer: Viewer, datasetId: stri
 	return found;
 }
 
-export type ChangeableBatch = typeof importBatch.$inferSelect;
+/** A batch's own fields, without the large ones (the table, the sites), which are read when needed. */
+const batchFields = {
+	id: importBatch.id,
+	datasetId: importBatch.datasetId,
+	fileName: importBatch.fileName,
+	fileSha256: importBatch.fileSha256,
+	status: importBatch.status,
+	revision: importBatch.revision,
+	preview: importBatch.preview,
+	createdBy: importBatch.createdBy,
+	hasSites: sql<boolean>`${importBatch.sites} IS NOT NULL`
+};
+
+async function selectBatch(db: Db, id: string) {
+	const [batch] = await db.select(batchFields).from(importBatch).where(eq(importBatch.id, id));
+	return batch;
+}
+
+export type ChangeableBatch = NonNullable<Awaited<ReturnType<typeof selectBatch>>>;
 
 /**
  * A batch its creator may still work on: anyone else (and an unknown id) gets the same 404, and
  * the upload right on its dataset is checked again.
  */
 export async function batchForChange(db: Db, viewer: Viewer, id: string): Promise<ChangeableBatch> {
-	const [batch] = await db.select().from(importBatch).where(eq(importBatch.id, id));
+	const batch = await selectBatch(db, id);
 	if (!batch || !viewer.userId || batch.createdBy !== viewer.userId) notFound();
 	await requireUploadRight(db, viewer, batch.datasetId);
 	return batch;
@@ -229,7 +247,11 @@ export async function previewBatchAs(
 	edits: RowEdits
 ): Promise<PreviewResponse> {
 	const batchId = batch.id;
-	const table = decodeTable(batch.parsedTable as JsonTable);
+	const [{ parsedTable }] = await db
+		.select({ parsedTable: importBatch.parsedTable })
+		.from(importBatch)
+		.where(eq(importBatch.id, batchId));
+	const table = decodeTable(parsedTable as JsonTable);
 	const edited = applyEdits(table, edits);
 	if (edited.unknown.length)
 		error(400, `The preview is out of date: ${edited.unknown.join('; ')}.`);
@@ -358,7 +380,7 @@ export async function commitImport(
 	if (batch.status !== 'draft') error(409, `This import is ${batch.status} already.`);
 	if (batch.revision !== request.revision)
 		error(409, 'The preview changed meanwhile (another tab?); check the rows again.');
-	if (!batch.sites)
+	if (!batch.hasSites)
 		error(
 			400,
 			'Some rows still have errors: correct or exclude them in the preview, then import. Nothing was written.'
