@@ -14,7 +14,7 @@ import { suggestMapping } from '$lib/imports';
 import { ANONYMOUS } from '$lib/server/access';
 import { createDb } from '$lib/server/db/client';
 import { dataset, importBatch, organisation, site } from '$lib/server/db/schema';
-import { draftFromBytes, previewBatchAs } from '$lib/server/imports/batches';
+import { draftFromBytes, previewBatchAs } from '$lib/server/imports/draft';
 import { runImportBatch } from '$lib/server/imports/run-import';
 import { figure, size } from './report';
 
