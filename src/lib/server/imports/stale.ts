@@ -22,7 +22,7 @@ export async function failStaleImports(db: Db, now = new Date()): Promise<number
 			and(
 				eq(importBatch.status, 'running'),
 				// The last sign of life: a draft may wait long before it is committed.
-				sql`coalesce(${importBatch.heartbeatAt}, ${importBatch.createdAt}) < ${new Date(now.getTime() - STALE_IMPORT_MS)}`
+				sql`coalesce(${importBatch.heartbeatAt}, ${importBatch.createdAt}) < ${new Date(now.getTime() - STALE_IMPORT_MS).toISOString()}::timestamptz`
 			)
 		)
 		.returning({ id: importBatch.id });
