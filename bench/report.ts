@@ -24,7 +24,7 @@ export interface Figure {
 	id: string;
 	label: string;
 	value: number;
-	unit: 'ms' | 's' | 'rows/s' | 'items/s';
+	unit: 'ms' | 's' | 'rows/s' | 'items/s' | 'MB';
 	/** Limit the value should stay under (better: 'lower') or above (better: 'higher'). */
 	target?: number;
 	better: 'lower' | 'higher';

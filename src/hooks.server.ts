@@ -17,6 +17,7 @@ import { jobs, stopJobs } from '$lib/server/jobs/boss';
 import { workGridQueue } from '$lib/server/jobs/grid-queue';
 import { startEmbargoRelease } from '$lib/server/jobs/embargo-release';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
+import { startImportWorker } from '$lib/server/jobs/import-queue';
 import { closeMailer, sendMail, startMailWorker } from '$lib/server/mail';
 import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
@@ -35,7 +36,7 @@ export const init: ServerInit = async () => {
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
-		// Queued jobs (mail, the hourly housekeeping and embargo release) are taken by this process; a queue that is not reachable yet is retried
+		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports) are taken by this process; a queue that is not reachable yet is retried
 		// by pg-boss once it is, and must not keep the app from starting.
 		startMailWorker()
 			.then(async () => startHousekeeping(await jobs(config().DATABASE_URL), getDb()))
@@ -48,6 +49,7 @@ export const init: ServerInit = async () => {
 					config().ORIGIN ?? 'http://127.0.0.1:3000'
 				)
 			)
+			.then(async () => startImportWorker(await jobs(config().DATABASE_URL), getDb()))
 			.catch((err) => console.warn('job workers not started:', err.message));
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.

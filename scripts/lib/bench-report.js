@@ -31,7 +31,7 @@ export const README_END = '<!-- bench:end -->';
  *   summary: { pass: number, miss: number, noTarget: number, notJudged: number, failedFiles: number } }} Report
  */
 
-const UNITS = ['ms', 's', 'rows/s', 'items/s'];
+const UNITS = ['ms', 's', 'rows/s', 'items/s', 'MB'];
 
 /**
  * Parse the JSON lines one bench file wrote. Anything malformed is an error with the line number,

@@ -123,14 +123,14 @@ describe('uploading sites and files, as a contributor would do it', () => {
 		const errorItems = issues.locator('li', { hasText: 'Error:' });
 		await expect(errorItems.count()).resolves.toBe(2);
 		await expect(errorItems.nth(0).textContent()).resolves.toMatch(
-			/Row 6, column "Northing": empty .*coordinate is missing/
+			/Row 6 \(site KGS-005\), column "Northing": empty .*coordinate is missing/
 		);
 		await expect(errorItems.nth(1).textContent()).resolves.toMatch(
-			/Row 10, column "HF sigma \(mW\/m2\)": "-3,5" is negative/
+			/Row 10 \(site KGS-009\), column "HF sigma \(mW\/m2\)": "-3,5" is negative/
 		);
 		const importButton = page.getByRole('button', { name: /^Import \d+ sites$/ });
 		await expect(importButton.isDisabled()).resolves.toBe(true);
-		await page.getByText('an import takes all rows or none').waitFor();
+		await page.getByText('an import takes all the rows shown or none').waitFor();
 		await screenshot(page, 'upload-preview-errors');
 
 		// Back to the file step with the corrected copy.
@@ -149,7 +149,7 @@ describe('uploading sites and files, as a contributor would do it', () => {
 		expect(await countOf(page, 'warning-count')).toBeGreaterThanOrEqual(1);
 		// KGS-007 (14,2 µW/m³) was row 8 and is row 7 of the corrected copy.
 		await expect(page.getByTestId('issues').textContent()).resolves.toMatch(
-			/Warning:\s*Row 7, column "A \(µW\/m³\)": "14,2".*high even for granite/
+			/Warning:\s*Row 7 \(site KGS-007\), column "A \(µW\/m³\)": "14,2".*high even for granite/
 		);
 		const valid = await countOf(page, 'valid-count');
 		expect(valid).toBe(corrected.codes.length);

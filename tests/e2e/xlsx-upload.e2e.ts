@@ -54,8 +54,8 @@ describe('XLSX upload in the browser', () => {
 		await page.getByRole('button', { name: 'Check the rows' }).click();
 		await expect(page.getByTestId('error-count').textContent()).resolves.toBe('0');
 		const table = await page.getByTestId('preview-report').locator('table').textContent();
-		expect(table).toContain('62.76'); // 1.5 HFU
-		expect(table).toContain('73.22'); // the formula's 1.75 HFU
+		expect(table).toContain('62.8'); // 1.5 HFU = 62.76 mW/m², shown to 0.1 mW/m²
+		expect(table).toContain('73.2'); // the formula's 1.75 HFU = 73.22 mW/m²
 		expect(errors).toEqual([]);
 		await page.close();
 	});

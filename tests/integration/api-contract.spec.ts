@@ -33,8 +33,13 @@ const UNDOCUMENTED = new Set([
 	'/attachments/{id}/download',
 	'/attachments/{id}/thumbnail',
 	'/datasets/{id}/imports',
-	'/datasets/{id}/imports/preview',
 	'/imports/{id}',
+	'/imports/{id}/preview',
+	'/imports/{id}/commit',
+	// Grid jobs (README "Heat-flow grids"): not yet in the generated document.
+	'/grids',
+	'/grids/{id}',
+	'/grids/{id}/{file}',
 	'/openapi.json'
 ]);
 

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { auditEvent, member, user } from '../../src/lib/server/db/schema';
 import { testEnv } from './env';
-import { createDraftDataset, gridCsv, importPayload, waitForImport } from './fixtures';
+import { createDraftDataset, gridCsv, importFile, waitForImport } from './fixtures';
 import { Client, DEMO_PASSWORD, signIn } from './http';
 
 /*
@@ -87,14 +87,13 @@ describe('audit rows', () => {
 		ok(announced, 201);
 		const { uploadUrl } = await announced.json();
 		ok(await c.contributor.put(uploadUrl, Buffer.from('a,b\n1,2\n')));
-		const started = await c.contributor.json(
-			`/api/v1/datasets/${id}/imports`,
-			importPayload(`audit-${run}.csv`, gridCsv(3, `AU-${run}`, { lon: -20, lat: -40 }))
+		const batchId = await importFile(
+			c.contributor,
+			id,
+			`audit-${run}.csv`,
+			gridCsv(3, `AU-${run}`, { lon: -20, lat: -40 })
 		);
-		ok(started, 202);
-		expect((await waitForImport(c.contributor, (await started.json()).batchId)).status).toBe(
-			'done'
-		);
+		expect((await waitForImport(c.contributor, batchId)).status).toBe('done');
 		ok(await c.contributor.post(`/datasets/${id}?/submit`, {}));
 		ok(await c.curator.post(`/datasets/${id}?/return`, { comment: 'Add the method.' }));
 		ok(await c.contributor.post(`/datasets/${id}?/submit`, {}));

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { dataset } from '../../src/lib/server/db/schema';
 import { testEnv } from './env';
-import { createDraftDataset, gridCsv, importPayload } from './fixtures';
+import { createDraftDataset, gridCsv, uploadAndPreview } from './fixtures';
 import { Client, DEMO_PASSWORD, signIn } from './http';
 
 // Addresses that used to reach PostgreSQL unchecked and answer 500.
@@ -48,13 +48,16 @@ describe('hostile addresses', () => {
 		}
 	});
 
-	it('answers an import preview with a NUL in a cell with a 400 naming the row', async () => {
+	it('blocks a row with a NUL in a cell in the preview, naming row and site, and writes nothing', async () => {
 		const contributor = await signIn('contributor@korvald-survey.example', DEMO_PASSWORD);
 		const id = await createDraftDataset(contributor, `NUL test ${Date.now()}`);
-		const payload = importPayload('nul.csv', gridCsv(3, 'NUL'));
-		payload.table.rows[1][0] = 'NUL-\u0000';
-		const res = await contributor.json(`/api/v1/datasets/${id}/imports/preview`, payload);
-		expect(res.status).toBe(400);
-		expect((await res.json()).message).toMatch(/Row 3, column "site_code" contains a NUL/);
+		// Far enough into the file that the upload's text sniffing (first 4 KB) does not see it.
+		const csv = gridCsv(300, 'NUL').replace('\nNUL-250;', '\nNUL-25\u00000;');
+		const { preview } = await uploadAndPreview(contributor, id, 'nul.csv', csv);
+		expect(preview.canImport).toBe(false);
+		const issue = preview.issues.find((i: { code: string }) => i.code === 'text.control-character');
+		expect(issue.message).toBe(
+			'Row 252 (site NUL-25�0), column "site_code": "NUL-25�0" contains the control character U+0000, which cannot be stored; remove it.'
+		);
 	});
 });

@@ -6,8 +6,12 @@ import { eq, inArray } from 'drizzle-orm';
 import postgres from 'postgres';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
-import { attachment, dataset } from '../../src/lib/server/db/schema';
-import { PENDING_UPLOAD_TTL_HOURS, runHousekeeping } from '../../src/lib/server/jobs/housekeeping';
+import { attachment, dataset, importBatch } from '../../src/lib/server/db/schema';
+import {
+	DRAFT_IMPORT_TTL_DAYS,
+	PENDING_UPLOAD_TTL_HOURS,
+	runHousekeeping
+} from '../../src/lib/server/jobs/housekeeping';
 import { SCHEDULES } from '../../src/lib/server/jobs/queues';
 import { testEnv } from './env';
 
@@ -65,6 +69,44 @@ describe('housekeeping', () => {
 			expect(left.map((r) => r.fileName).sort()).toEqual(['fresh.pdf', 'ready.pdf']);
 		} finally {
 			for (const r of rows) await db.delete(attachment).where(eq(attachment.id, r.id));
+		}
+	});
+
+	it('forgets import drafts never committed within a week, and keeps newer drafts and every import', async () => {
+		const [d] = await db.select({ id: dataset.id }).from(dataset).limit(1);
+		const now = new Date();
+		const daysAgo = (days: number) => new Date(now.getTime() - days * 24 * HOUR_MS);
+		const batch = (fileName: string, status: 'draft' | 'done', createdAt: Date) => ({
+			datasetId: d.id,
+			fileName,
+			fileSha256: 'h'.repeat(64),
+			totalRows: 1,
+			status,
+			createdAt
+		});
+		const rows = await db
+			.insert(importBatch)
+			.values([
+				batch('abandoned.csv', 'draft', daysAgo(DRAFT_IMPORT_TTL_DAYS + 1)),
+				batch('recent.csv', 'draft', daysAgo(DRAFT_IMPORT_TTL_DAYS - 1)),
+				batch('imported.csv', 'done', daysAgo(365))
+			])
+			.returning({ id: importBatch.id });
+		try {
+			const done = await runHousekeeping(db, now);
+			expect(done.expiredImportDrafts).toBeGreaterThanOrEqual(1);
+			const left = await db
+				.select({ fileName: importBatch.fileName })
+				.from(importBatch)
+				.where(
+					inArray(
+						importBatch.id,
+						rows.map((r) => r.id)
+					)
+				);
+			expect(left.map((r) => r.fileName).sort()).toEqual(['imported.csv', 'recent.csv']);
+		} finally {
+			for (const r of rows) await db.delete(importBatch).where(eq(importBatch.id, r.id));
 		}
 	});
 

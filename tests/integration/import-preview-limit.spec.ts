@@ -5,7 +5,7 @@ import { createDb } from '../../src/lib/server/db/client';
 import { rateLimit, user } from '../../src/lib/server/db/schema';
 import { userRateKey } from '../../src/lib/server/rate-limit';
 import { testEnv } from './env';
-import { createDraftDataset, gridCsv, importPayload } from './fixtures';
+import { createDraftDataset, gridCsv, uploadForImport } from './fixtures';
 import { type Client, DEMO_PASSWORD, signIn } from './http';
 
 // Finding 15: nothing limited how often one user calls the import preview (which validates a
@@ -32,8 +32,9 @@ afterAll(async () => {
 describe('import preview', () => {
 	it('answers 429 with Retry-After once a user is over the limit', async () => {
 		const { max } = USER_RATE_RULES['import-preview'];
-		const payload = importPayload('limit.csv', gridCsv(3, 'LIM'));
-		const url = `/api/v1/datasets/${datasetId}/imports/preview`;
+		const up = await uploadForImport(contributor, datasetId, 'limit.csv', gridCsv(3, 'LIM'));
+		const payload = { mapping: up.suggested };
+		const url = `/api/v1/imports/${up.batchId}/preview`;
 		for (let i = 0; i < max; i++) {
 			const res = await contributor.json(url, payload);
 			expect(res.status).toBe(200);

@@ -69,3 +69,12 @@ export type { TemperatureLog, LasLogOptions, CsvLogOptions } from './temperature
 export { parseConductivitySamples } from './conductivity-samples';
 export type { ConductivitySamples, ConductivitySampleOptions } from './conductivity-samples';
 export { templateCsv, templateColumns, TEMPLATE_FILE_NAME } from './template';
+export { applyEdits, NO_EDITS } from './edits';
+export type { CellCorrection, RowEdits, AppliedCorrection, EditedTable } from './edits';
+export { nearPairs, distanceM, DEFAULT_NEAR_DISTANCE_M } from './near-duplicates';
+export type { NearPair } from './near-duplicates';
+export { controlCharacter } from './cells';
+export { encodeTable, decodeTable } from './table-json';
+export type { JsonCell, JsonTable } from './table-json';
+export { PREVIEW_COLUMNS, displayValues, roundForDisplay } from './preview-view';
+export type { PreviewColumn } from './preview-view';

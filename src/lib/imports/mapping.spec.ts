@@ -98,3 +98,33 @@ describe('checkMapping', () => {
 		).toEqual(['mapping.column-twice', 'mapping.bad-unit']);
 	});
 });
+
+// Header spellings as found in contributors' own spreadsheets (invented files; common practice, no
+// source): symbols, slashes, brackets and unit suffixes around the field's name.
+describe('suggestMapping on realistic headers', () => {
+	const cases: [string, string, string | undefined][] = [
+		['dT/dz (K/km)', 'gradient', 'K/km'],
+		['dT/dz, K/km', 'gradient', 'K/km'],
+		['grad (°C/km)', 'gradient', 'degC/km'],
+		['Q [mW/m2]', 'heatFlow', 'mW/m2'],
+		['HF_mW/m²', 'heatFlow', 'mW/m2'],
+		['q (HFU)', 'heatFlow', 'HFU'],
+		['λ (W/m/K)', 'conductivity', 'W/m/K'],
+		['k [W/(m·K)]', 'conductivity', 'W/m/K'],
+		['TC (W/m/K)', 'conductivity', 'W/m/K'],
+		['Northing_m', 'y', undefined],
+		['Easting (m)', 'x', undefined],
+		['Lat (deg)', 'lat', undefined],
+		['Long_dd', 'lon', undefined],
+		['Site-ID', 'code', undefined]
+	];
+	it.each(cases)('%s → %s', (header, key, unit) => {
+		const m = suggestMapping([header]);
+		expect(Object.keys(m)).toEqual([key]);
+		if (unit) expect(m[key as keyof typeof m]!.unit).toBe(unit);
+	});
+
+	it('does not take a header that only starts like a field', () => {
+		expect(suggestMapping(['Quarry owner', 'Kiln number'])).toEqual({});
+	});
+});

@@ -18,6 +18,7 @@ export function headerWords(text: string): string[] {
 		.toLowerCase()
 		.replace(/[μµ]/g, 'u')
 		.replace(/σ/g, ' sigma ')
+		.replace(/[λκ]/g, ' lambda ')
 		.replace(/±|\+\/-|\+-/g, ' plusminus ')
 		.replace(/²/g, '2')
 		.replace(/³/g, '3')
@@ -50,6 +51,27 @@ function sameWords(a: string[], b: string[]): boolean {
 	return a.length === b.length && a.every((w, i) => w === b[i]);
 }
 
+/** Same words, or the same letters once punctuation is gone: `dT/dz` is the synonym `dtdz`. */
+function sameName(a: string[], b: string[]): boolean {
+	return sameWords(a, b) || (a.length > 1 && a.join('') === b.join(''));
+}
+
+/**
+ * Words a header may add after a field without a unit choice (coordinates, codes): `Northing_m`,
+ * `Latitude (deg)`, `lon_dd`. They say how the value is written, not what it is.
+ */
+const PLAIN_SUFFIXES = new Set([
+	'm',
+	'metres',
+	'meters',
+	'deg',
+	'degrees',
+	'dd',
+	'decimal degrees',
+	'wgs84',
+	'wgs 84'
+]);
+
 /** Matches one header against one field: null, or the unit found in the header (if any). */
 function matchHeader(header: string, key: FieldKey): { unit?: string } | null {
 	const def = field(key);
@@ -59,11 +81,19 @@ function matchHeader(header: string, key: FieldKey): { unit?: string } | null {
 		bracket && def.quantity ? recogniseUnit(def.quantity, bracket[2])?.id : undefined;
 	const words = headerWords(nameText);
 	for (const syn of synonymWords.get(key) ?? []) {
-		if (sameWords(words, syn)) return { unit: bracketUnit };
-		if (!def.quantity || words.length <= syn.length) continue;
-		if (!sameWords(words.slice(0, syn.length), syn)) continue;
-		const unit = unitFromWords(def.quantity, words.slice(syn.length));
-		if (unit) return { unit };
+		if (sameName(words, syn)) return { unit: bracketUnit };
+		if (words.length <= syn.length) continue;
+		// The name is the synonym followed by a unit: `Q_mW_m2`, `dT/dz K/km`, `HF mW/m²`.
+		for (let cut = syn.length; cut < words.length; cut++) {
+			if (!sameName(words.slice(0, cut), syn)) continue;
+			const rest = words.slice(cut);
+			if (!def.quantity) {
+				if (PLAIN_SUFFIXES.has(rest.join(' '))) return {};
+				continue;
+			}
+			const unit = unitFromWords(def.quantity, rest);
+			if (unit) return { unit };
+		}
 	}
 	return null;
 }

@@ -67,33 +67,36 @@ describe('buildPreview', () => {
 		]);
 		const byCode = Object.fromEntries(p.issues.map((i) => [i.code, i.message]));
 		expect(byCode['coordinate.missing']).toBe(
-			'Row 3, column "y": empty — the coordinate is missing; every site needs a location.'
+			'Row 3 (site A2), column "y": empty — the coordinate is missing; every site needs a location.'
 		);
 		expect(byCode['number.invalid']).toBe(
-			'Row 4, column "q (mW/m2)": "sixty" is not a number (Heat flow).'
+			'Row 4 (site A3), column "q (mW/m2)": "sixty" is not a number (Heat flow).'
 		);
 		expect(byCode['sigma.negative']).toBe(
-			'Row 5, column "q sigma": "-3" is negative; a standard deviation must be ≥ 0.'
+			'Row 5 (site A4), column "q sigma": "-3" is negative; a standard deviation must be ≥ 0.'
 		);
 		expect(byCode['code.duplicate']).toBe(
-			'Row 7, column "code": "A1" is already used by row 2; site codes must be unique within the file.'
+			'Row 7 (site A1), column "code": "A1" is already used by row 2; site codes must be unique within the file.'
 		);
 		expect(byCode['method.unknown']).toMatch(
-			/^Row 6, column "method": "guessed" is not a known method; use one of borehole_interval/
+			/^Row 6 \(site A5\), column "method": "guessed" is not a known method; use one of borehole_interval/
 		);
 		expect(p.rows.filter((r) => r.site).length).toBe(1);
 		expect(p.validCount).toBe(1);
 		expect(p.canImport).toBe(false);
 	});
 	it('warns (never rejects) on implausible values, per docs/science.md#plausibility-limits', () => {
-		const p = preview([
-			'W1;500000;6600000;650;30;2,5;12;260;100;900;2;interval;;1999', // q > 500 mW/m² (docs/science.md#plausibility-limits)
-			'W2;500000;6600000;-5;1;2,5;12;-2;100;900;2;interval;;1999', // q < 0 (docs/science.md#plausibility-limits)
-			'W3;500000;6600000;60;3;7,5;12;8;100;900;2;interval;;1999', // k outside 0.5–6 W/m/K (common practice)
-			'W4;500000;6600000;60;3;2,5;12;24;100;900;12;interval;;1999', // A > 10 µW/m³ (granite gives about 2–4; docs/science.md#plausibility-limits)
-			'W5;500000;6600000;60;3;2,5;12;35;100;900;2;interval;;1999', // Γ vs q/k = 24 K/km: 46 % off
-			'W6;500000;6600000;60;3;2,5;12;24;100;900;2;interval;;2031'
-		]);
+		const p = preview(
+			[
+				'W1;500000;6600000;650;30;2,5;12;260;100;900;2;interval;;1999', // q > 500 mW/m² (docs/science.md#plausibility-limits)
+				'W2;500000;6600000;-5;1;2,5;12;-2;100;900;2;interval;;1999', // q < 0 (docs/science.md#plausibility-limits)
+				'W3;500000;6600000;60;3;7,5;12;8;100;900;2;interval;;1999', // k outside 0.5–6 W/m/K (common practice)
+				'W4;500000;6600000;60;3;2,5;12;24;100;900;12;interval;;1999', // A > 10 µW/m³ (granite gives about 2–4; docs/science.md#plausibility-limits)
+				'W5;500000;6600000;60;3;2,5;12;35;100;900;2;interval;;1999', // Γ vs q/k = 24 K/km: 46 % off
+				'W6;500000;6600000;60;3;2,5;12;24;100;900;2;interval;;2031'
+			],
+			{ nearDistanceM: 0 }
+		); // all at one place on purpose: near-duplicates are tested below
 		expect(p.errorCount).toBe(0);
 		expect(codes(p)).toEqual([
 			'2:warning:heat-flow.implausible',
@@ -104,7 +107,7 @@ describe('buildPreview', () => {
 			'7:warning:year.implausible'
 		]);
 		expect(p.issues[4].message).toBe(
-			'Row 6, column "gradient (K/km)": "35" (35 K/km) differs by 46 % from heat flow / conductivity = 60 / 2.5 = 24 K/km (more than 20 %).'
+			'Row 6 (site W5), column "gradient (K/km)": "35" (35 K/km) differs by 46 % from heat flow / conductivity = 60 / 2.5 = 24 K/km (more than 20 %).'
 		);
 		expect(p.rows.every((r) => r.site !== null)).toBe(true);
 		expect(
@@ -119,7 +122,9 @@ describe('buildPreview', () => {
 		const table = parseCsv('code,lon,lat,q\nA,10,95,60\nB,"7°30\'W","59 12 30 N",60\nC,10,50,60\n');
 		const p = buildPreview(table, { mapping: suggestMapping(table.headers) });
 		expect(p.issues.map((i) => i.code)).toEqual(['angle.invalid']);
-		expect(p.issues[0].message).toBe('Row 2, column "lat": "95" is outside ±90° for a latitude.');
+		expect(p.issues[0].message).toBe(
+			'Row 2 (site A), column "lat": "95" is outside ±90° for a latitude.'
+		);
 		expect(p.rows[1].site!.location).toEqual({ lon: -7.5, lat: 59 + 12 / 60 + 30 / 3600 });
 		const projected = parseCsv(
 			'code;x;y;epsg;q\nA;1e9;1e9;3857;60\nB;1;2;1234;60\nC;500000;6600000;EPSG:32632;60\nD;500000;99000000;25832;60\nE;1500000;6600000;25832;60\n'
@@ -132,7 +137,7 @@ describe('buildPreview', () => {
 			'6:warning:coordinate.outside-zone' // easting 1 500 km: about 18° east of zone 32's meridian
 		]);
 		expect(q.issues[0].message).toMatch(
-			/^Row 2, column "Coordinates": "1e9 \/ 1e9" — in EPSG:3857 this is longitude 8623\.15°/
+			/^Row 2 \(site A\), column "Coordinates": "1e9 \/ 1e9" — in EPSG:3857 this is longitude 8623\.15°/
 		);
 		expect(q.rows[2].site!.originalEpsg).toBe(32632);
 	});

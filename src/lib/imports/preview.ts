@@ -2,6 +2,8 @@
 // warnings (row order), and the columns left unmapped. Nothing is dropped without a message.
 
 import { checkMapping, unmappedColumns } from './mapping';
+import { DEFAULT_NEAR_DISTANCE_M, nearPairs } from './near-duplicates';
+import { flagsOf } from '../sites/flags';
 import type { ImportIssue, ParsedTable } from './types';
 import {
 	prepareRowContext,
@@ -32,6 +34,7 @@ export function buildPreview(table: ParsedTable, options: ValidateOptions): Impo
 	if (table.rows.length === 0)
 		fileIssues.push({
 			row: null,
+			siteCode: null,
 			severity: 'error',
 			column: '',
 			value: '',
@@ -55,18 +58,45 @@ export function buildPreview(table: ParsedTable, options: ValidateOptions): Impo
 				const column = table.headers[options.mapping.code!.column];
 				r.errors.push({
 					row: r.row,
+					siteCode: code,
 					severity: 'error',
 					column,
 					value: code,
 					code: 'code.duplicate',
-					message: `${where} ${r.row}, column "${column}": ${JSON.stringify(code)} is already used by ${where.toLowerCase()} ${first}; site codes must be unique within the file.`
+					message: `${where} ${r.row} (site ${code}), column "${column}": ${JSON.stringify(code)} is already used by ${where.toLowerCase()} ${first}; site codes must be unique within the file.`
 				});
 				r.site = null;
 			}
 		}
 		rows[i] = r;
 	}
+	markNearDuplicates(rows, where, options.nearDistanceM ?? DEFAULT_NEAR_DISTANCE_M);
 	return summarise(rows, fileIssues, ignoredColumns);
+}
+
+/**
+ * Two sites of the file closer than `maxM`: a warning on the later one naming both, and a flag
+ * on its stored site. Rows with errors have no location to compare and are left out.
+ */
+function markNearDuplicates(rows: RowResult[], where: string, maxM: number) {
+	const located = rows.filter((r) => r.site !== null);
+	for (const pair of nearPairs(
+		located.map((r) => r.site!.location),
+		maxM
+	)) {
+		const a = located[pair.first];
+		const b = located[pair.second];
+		b.warnings.push({
+			row: b.row,
+			siteCode: b.site!.code,
+			severity: 'warning',
+			column: 'Coordinates',
+			value: `${b.site!.location.lat}, ${b.site!.location.lon}`,
+			code: 'location.near-duplicate',
+			message: `${where} ${b.row} (site ${b.site!.code}) is ${Math.round(pair.distanceM)} m from ${where.toLowerCase()} ${a.row} (site ${a.site!.code}) of this file; check they are not the same borehole.`
+		});
+		b.site!.flags = flagsOf(b.warnings);
+	}
 }
 
 function summarise(
@@ -79,6 +109,7 @@ function summarise(
 	for (const r of rows) {
 		for (const e of r.errors) issues.push(e);
 		for (const w of r.warnings) issues.push(w);
+		if (r.site) r.site.flags = flagsOf(r.warnings);
 		if (r.site) validCount++;
 	}
 	const errorCount = issues.filter((i) => i.severity === 'error').length;

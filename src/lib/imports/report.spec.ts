@@ -3,10 +3,11 @@ import { describe, expect, it } from 'vitest';
 import { issuesToCsv } from './report';
 
 describe('issuesToCsv', () => {
-	it('writes row, severity, column, message; quotes where needed; defuses formulas', () => {
+	it('writes row, site code, severity, column, message; quotes where needed; defuses formulas', () => {
 		const csv = issuesToCsv([
 			{
 				row: null,
+				siteCode: null,
 				severity: 'error',
 				column: 'Site code',
 				value: '',
@@ -15,6 +16,7 @@ describe('issuesToCsv', () => {
 			},
 			{
 				row: 7,
+				siteCode: 'KV-7',
 				severity: 'warning',
 				column: '=HF',
 				value: '650',
@@ -23,10 +25,10 @@ describe('issuesToCsv', () => {
 			}
 		]);
 		const parsed = Papa.parse<string[]>(csv.trim()).data;
-		expect(parsed[0]).toEqual(['row', 'severity', 'column', 'message']);
-		expect(parsed[1]).toEqual(['', 'error', 'Site code', 'Map a column to "Site code".']);
-		expect(parsed[2][0]).toBe('7');
-		expect(parsed[2][2]).toBe("'=HF");
+		expect(parsed[0]).toEqual(['row', 'code', 'severity', 'column', 'message']);
+		expect(parsed[1]).toEqual(['', '', 'error', 'Site code', 'Map a column to "Site code".']);
+		expect(parsed[2].slice(0, 2)).toEqual(['7', 'KV-7']);
+		expect(parsed[2][3]).toBe("'=HF");
 		expect(csv.endsWith('\n')).toBe(true);
 	});
 });

@@ -1,6 +1,7 @@
 // The plain object a valid upload row becomes: the site table's insert shape without datasetId,
 // ids or timestamps (src/lib/server/db/schema/sites.ts), with the computed quality class.
 
+import type { SiteFlag } from '../sites/flags';
 import type { QualityClass } from '../sites/quality';
 import type { Correction, HeatFlowMethod } from './vocabulary';
 
@@ -32,4 +33,6 @@ export interface SiteDraft {
 	yearMeasured: number | null;
 	remarks: string | null;
 	qualityClass: QualityClass;
+	/** Warnings the contributor imported anyway (`src/lib/sites/flags.ts`). */
+	flags: SiteFlag[];
 }

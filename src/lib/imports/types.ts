@@ -23,6 +23,8 @@ export type Severity = 'error' | 'warning';
 /** One finding about one row (or the whole file when row is null). Errors block the import. */
 export interface ImportIssue {
 	row: number | null;
+	/** The row's site code as written (for finding it in the file), null when it has none. */
+	siteCode?: string | null;
 	severity: Severity;
 	/** The user's column header (or a field label when no column is involved). */
 	column: string;

@@ -4,6 +4,7 @@
 import { qualityClass } from '../sites/quality';
 import {
 	cellText,
+	controlCharacter,
 	isBlank,
 	parseCountCell,
 	parseNumberCell,
@@ -24,6 +25,7 @@ import {
 import type { SiteDraft } from './site-draft';
 import type { Cell, ImportIssue, ParsedTable, Severity } from './types';
 import { findUnit, type UnitDef } from '../geo/units';
+import { flagsOf } from '../sites/flags';
 import {
 	methodSpellings,
 	parseCorrections,
@@ -38,6 +40,8 @@ export interface ValidateOptions {
 	epsg?: number;
 	/** The sites are in a volcanic area: no warning for heat flow above MAX_PLAUSIBLE_HEAT_FLOW_MWM2. */
 	volcanicArea?: boolean;
+	/** Distance in metres under which two sites are reported as possibly the same; default 100. */
+	nearDistanceM?: number;
 	/** Server hook: a message when a site is close to an existing one (shown as a warning), else null. */
 	nearExisting?: (site: SiteDraft) => string | null;
 	/** Year used for the "measured in the future" warning; default the current UTC year. */
@@ -105,6 +109,16 @@ export function prepareRowContext(table: ParsedTable, options: ValidateOptions):
 	};
 }
 
+// eslint-disable-next-line no-control-regex -- shown as a replacement character in messages
+const CONTROL_ALL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/g;
+
+/** The site code as messages quote it: trimmed, control characters shown as �, cut short. */
+function codeForMessages(cell: Cell | undefined): string | null {
+	const t = cellText(cell).replace(CONTROL_ALL, '�');
+	if (t === '') return null;
+	return t.length > 40 ? `${t.slice(0, 40)}…` : t;
+}
+
 function fmt(n: number): string {
 	return Number.isInteger(n) ? String(n) : String(Number(n.toPrecision(6)));
 }
@@ -121,6 +135,10 @@ export function validateRow(ctx: RowContext, index: number): RowResult {
 		columns[key] !== undefined ? table.headers[columns[key]!] : field(key).label;
 	const cellOf = (key: FieldKey): Cell | undefined =>
 		columns[key] !== undefined ? cells[columns[key]!] : undefined;
+	// Every message names the row and, when it has one, the site code, so a report line can be
+	// found in the file by either.
+	const siteCode = columns.code !== undefined ? codeForMessages(cells[columns.code]) : null;
+	const here = siteCode === null ? `${where} ${row}` : `${where} ${row} (site ${siteCode})`;
 	const add = (
 		severity: Severity,
 		key: FieldKey | string,
@@ -132,15 +150,31 @@ export function validateRow(ctx: RowContext, index: number): RowResult {
 		const shown = value === '' ? 'empty' : JSON.stringify(value);
 		const issue: ImportIssue = {
 			row,
+			siteCode,
 			severity,
 			column,
 			value,
 			code,
-			message: `${where} ${row}, column "${column}": ${shown} ${text}`
+			message: `${here}, column "${column}": ${shown} ${text}`
 		};
 		(severity === 'error' ? errors : warnings).push(issue);
 	};
 	const values: Partial<SiteDraft> = {};
+
+	// Control characters in any mapped cell block the row (PostgreSQL refuses NUL in text).
+	for (const def of FIELDS) {
+		const c = columns[def.key];
+		if (c === undefined) continue;
+		const bad = controlCharacter(cells[c]);
+		if (bad)
+			add(
+				'error',
+				def.key,
+				cellText(cells[c]).replace(CONTROL_ALL, '�'),
+				'text.control-character',
+				`contains the control character ${bad}, which cannot be stored; remove it.`
+			);
+	}
 
 	// Site code and text fields.
 	const code = parseTextCell(cellOf('code'));
@@ -160,7 +194,7 @@ export function validateRow(ctx: RowContext, index: number): RowResult {
 		const cell = cellOf(key);
 		const r = parseNumberCell(cell, table.decimalComma);
 		if (!r.ok) {
-			add('error', key, cellText(cell), 'number.invalid', `${r.error} (${field(key).label}).`);
+			add('error', key, cellText(cell), r.code, `${r.error} (${field(key).label}).`);
 			continue;
 		}
 		const unit = units[key]!;
@@ -300,7 +334,7 @@ export function validateRow(ctx: RowContext, index: number): RowResult {
 			`(${fmt(q)} mW/m²) is above ${MAX_PLAUSIBLE_HEAT_FLOW_MWM2} mW/m², implausible outside volcanic areas.`
 		);
 	if (columns.heatFlow === undefined || q === null)
-		if (!errors.some((e) => e.code === 'number.invalid' && e.column === headerOf('heatFlow')))
+		if (!errors.some((e) => e.code.startsWith('number.') && e.column === headerOf('heatFlow')))
 			add(
 				'warning',
 				'heatFlow',
@@ -344,14 +378,16 @@ export function validateRow(ctx: RowContext, index: number): RowResult {
 			const { lat, lon } = site.location;
 			warnings.push({
 				row,
+				siteCode,
 				severity: 'warning',
 				column: 'Coordinates',
 				value: `${lat}, ${lon}`,
 				code: 'location.near-existing',
-				message: `${where} ${row}: the site at ${lat.toFixed(5)}, ${lon.toFixed(5)} is ${near}`
+				message: `${here}: the site at ${lat.toFixed(5)}, ${lon.toFixed(5)} is ${near}`
 			});
 		}
 	}
+	values.flags = flagsOf(warnings);
 	return { row, site, values, errors, warnings };
 }
 
@@ -428,7 +464,7 @@ function readLocation(
 		if (projected) {
 			const r = parseNumberCell(cell, table.decimalComma);
 			if (!r.ok) {
-				add('error', key, cellText(cell), 'number.invalid', `${r.error} (${field(key).label}).`);
+				add('error', key, cellText(cell), r.code, `${r.error} (${field(key).label}).`);
 				return undefined;
 			}
 			return r.value;

@@ -1,8 +1,7 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { getDb } from './db';
-import { importPayloadSchema } from './imports/payload';
+import type { z } from 'zod';
 import { roleCan, type Action, type Resource } from './permissions';
-import { datasetForViewer } from './repositories/datasets';
 import { organisationBySlug } from './repositories/organisations';
 
 /** The signed-in user, or a redirect to sign-in (pages) / 401 (actions and API). */
@@ -50,18 +49,16 @@ export function requireUpload(found: { can: { upload: boolean }; uploadRefusal: 
 	if (!found.can.upload) error(403, found.uploadRefusal ?? 'You may not upload here.');
 }
 
-/** The signed-in, confirmed user may add sites to this dataset; returns the parsed import request. */
-export async function requireUploader(event: RequestEvent, datasetId: string) {
-	const user = requireUser(event, 'action');
-	const found = await datasetForViewer(getDb(), event.locals.viewer, datasetId);
-	requireUpload(found);
-	const body = await event.request.json().catch(() => null);
-	const parsed = importPayloadSchema.safeParse(body);
-	if (!parsed.success) {
+/** The request's JSON body parsed with a shared zod schema; 400 naming each problem otherwise. */
+export async function parseBody<S extends z.ZodType>(
+	event: RequestEvent,
+	schema: S
+): Promise<z.output<S>> {
+	const parsed = schema.safeParse(await event.request.json().catch(() => null));
+	if (!parsed.success)
 		error(
 			400,
-			`The upload could not be read: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`
+			`The request could not be read: ${parsed.error.issues.map((i) => `${i.path.join('.') || 'body'}: ${i.message}`).join('; ')}`
 		);
-	}
-	return { user, dataset: found.dataset, payload: parsed.data };
+	return parsed.data;
 }

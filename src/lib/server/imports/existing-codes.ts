@@ -28,11 +28,12 @@ export async function markExistingCodes(
 		if (!r.site || !taken.has(r.site.code)) continue;
 		const issue = {
 			row: r.row,
+			siteCode: r.site.code,
 			severity: 'error' as const,
 			column: codeColumn,
 			value: r.site.code,
 			code: 'code.exists',
-			message: `Row ${r.row}, column "${codeColumn}": site ${JSON.stringify(r.site.code)} exists in this dataset already.`
+			message: `Row ${r.row} (site ${r.site.code}), column "${codeColumn}": site ${JSON.stringify(r.site.code)} exists in this dataset already.`
 		};
 		r.errors.push(issue);
 		preview.issues.push(issue);

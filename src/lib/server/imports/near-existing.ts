@@ -6,14 +6,15 @@ import { dataset, site } from '../db/schema';
 export const NEAR_EXISTING_M = 100;
 
 /**
- * For each location, the closest site within 100 m that the viewer may see (in any dataset),
+ * For each location, the closest site within `distanceM` (default 100 m) that the viewer may see (in any dataset),
  * found with PostGIS geography distance on the GiST index over location::geography.
  * Returns a map from "lon,lat" to a message for the preview warning.
  */
 export async function nearbyExistingSites(
 	db: Db,
 	viewer: Viewer,
-	points: { lon: number; lat: number }[]
+	points: { lon: number; lat: number }[],
+	distanceM: number = NEAR_EXISTING_M
 ): Promise<Map<string, string>> {
 	const found = new Map<string, string>();
 	const CHUNK = 5000;
@@ -34,7 +35,7 @@ export async function nearbyExistingSites(
 				SELECT ${site.code} AS code, ${dataset.title} AS title,
 					ST_Distance(${site.location}::geography, ST_SetSRID(ST_MakePoint(r.lon, r.lat), 4326)::geography) AS distance_m
 				FROM ${site} JOIN ${dataset} ON ${site.datasetId} = ${dataset.id}
-				WHERE ST_DWithin(${site.location}::geography, ST_SetSRID(ST_MakePoint(r.lon, r.lat), 4326)::geography, ${NEAR_EXISTING_M})
+				WHERE ST_DWithin(${site.location}::geography, ST_SetSRID(ST_MakePoint(r.lon, r.lat), 4326)::geography, ${distanceM})
 					AND ${visibleDatasets(viewer)}
 				ORDER BY distance_m
 				LIMIT 1

@@ -1,114 +1,118 @@
-import { error } from '@sveltejs/kit';
-import { eq, sql } from 'drizzle-orm';
-import type { Viewer } from '../access';
+import { and, eq, sql } from 'drizzle-orm';
+import type { SiteDraft } from '$lib/imports';
 import type { Db } from '../db/client';
-import { dataset, importBatch, site, type NewSite } from '../db/schema';
-import { recordAudit, type DbOrTx } from '../repositories/audit';
-import type { ImportPayload } from './payload';
-import { serverPreview } from './server-preview';
+import { dataset, importBatch } from '../db/schema';
+import { recordAudit } from '../repositories/audit';
+import { INSERT_CHUNK_ROWS, insertSiteChunk } from './bulk-insert';
 
-const CHUNK_ROWS = 1000;
+/** A running import whose heartbeat is older than this lost its worker (killed, crashed). */
+export const IMPORT_HEARTBEAT_STALE_S = 60;
+/** A batch taken this many times without finishing is failed instead of tried again. */
+export const IMPORT_MAX_ATTEMPTS = 3;
+
+export interface RunOptions {
+	staleAfterS?: number;
+	/** Called inside the transaction after each chunk (tests use it to stop a worker mid-way). */
+	afterChunk?: (done: number, total: number) => Promise<void>;
+}
+
+export type RunOutcome = 'done' | 'failed' | 'skipped';
 
 /**
- * Validate again and, when nothing blocks, insert every accepted row in ONE transaction, in the
- * background. Progress is written to import_batch from outside the transaction, so any app
- * instance can report it; a failure rolls the whole file back and records why.
+ * Write a queued batch's sites in ONE transaction, in chunks of INSERT_CHUNK_ROWS, and mark it
+ * done in the same transaction, so the sites and the "done" are committed together or not at
+ * all. Progress and a heartbeat are written from outside the transaction after each chunk.
+ *
+ * A batch is taken only when it is queued, or running with a stale heartbeat (its worker died:
+ * PostgreSQL rolled its transaction back when the connection closed), so a job delivered twice
+ * writes once. A failure rolls everything back and is recorded on the batch with a clear message.
  */
-export async function startImport(
-	db: Db,
-	viewer: Viewer,
-	datasetId: string,
-	payload: ImportPayload
-) {
-	const { preview, previousImport } = await serverPreview(db, viewer, datasetId, payload);
-	if (!preview.canImport || preview.errorCount > 0) {
-		error(
-			400,
-			`${preview.errorCount} rows have errors; fix them (see the preview report) and import again. Nothing was written.`
-		);
-	}
-	if (previousImport && !payload.allowReimport) {
-		error(
-			409,
-			`This file was imported into this dataset on ${previousImport.at.toISOString().slice(0, 10)}. Confirm to import it again.`
-		);
-	}
-	const rows: NewSite[] = preview.rows.flatMap((r) => (r.site ? [{ ...r.site, datasetId }] : []));
-	const [batch] = await db
-		.insert(importBatch)
-		.values({
-			datasetId,
-			fileName: payload.fileName,
-			fileSha256: payload.sha256,
-			totalRows: rows.length,
-			createdBy: viewer.userId
-		})
-		.returning({ id: importBatch.id });
-	void insertAll(db, batch.id, datasetId, rows, async (tx) => {
-		await recordAudit(tx, viewer, {
-			action: 'import',
-			organisationId: sql`(SELECT ${dataset.organisationId} FROM ${dataset} WHERE ${dataset.id} = ${datasetId})`,
-			datasetId,
-			details: { importId: batch.id, fileName: payload.fileName, rows: rows.length }
-		});
-	});
-	return { batchId: batch.id, rows: rows.length, warnings: preview.warningCount };
-}
-
-/** Insert sites in one transaction, in chunks, calling onChunk (outside the transaction) after each. */
-export async function insertSites(
-	db: Db,
-	datasetId: string,
-	rows: NewSite[],
-	onChunk: (done: number) => Promise<void>,
-	/** Written in the same transaction (the audit row of the import). */
-	record?: (tx: DbOrTx) => Promise<void>
-) {
-	await db.transaction(async (tx) => {
-		for (let i = 0; i < rows.length; i += CHUNK_ROWS) {
-			await tx.insert(site).values(rows.slice(i, i + CHUNK_ROWS));
-			await onChunk(Math.min(rows.length, i + CHUNK_ROWS));
-		}
-		await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${datasetId}`);
-		await record?.(tx);
-	});
-}
-
-async function insertAll(
+export async function runImportBatch(
 	db: Db,
 	batchId: string,
-	datasetId: string,
-	rows: NewSite[],
-	record: (tx: DbOrTx) => Promise<void>
-) {
-	try {
-		await insertSites(
-			db,
-			datasetId,
-			rows,
-			async (done) => {
-				await db.update(importBatch).set({ doneRows: done }).where(eq(importBatch.id, batchId));
-			},
-			record
-		);
+	options: RunOptions = {}
+): Promise<RunOutcome> {
+	const staleAfterS = options.staleAfterS ?? IMPORT_HEARTBEAT_STALE_S;
+	const [taken] = await db
+		.update(importBatch)
+		.set({
+			status: 'running',
+			attempts: sql`${importBatch.attempts} + 1`,
+			heartbeatAt: sql`now()`,
+			doneRows: 0
+		})
+		.where(
+			and(
+				eq(importBatch.id, batchId),
+				sql`(${importBatch.status} = 'queued' OR (${importBatch.status} = 'running' AND ${importBatch.heartbeatAt} < now() - make_interval(secs => ${staleAfterS})))`
+			)
+		)
+		.returning({
+			attempts: importBatch.attempts,
+			datasetId: importBatch.datasetId,
+			sites: importBatch.sites,
+			createdBy: importBatch.createdBy,
+			fileName: importBatch.fileName
+		});
+	if (!taken) return 'skipped';
+	const fail = async (message: string) => {
 		await db
 			.update(importBatch)
-			.set({ status: 'done', finishedAt: new Date() })
+			.set({ status: 'failed', error: message, doneRows: 0, finishedAt: new Date() })
 			.where(eq(importBatch.id, batchId));
+		return 'failed' as const;
+	};
+	if (taken.attempts > IMPORT_MAX_ATTEMPTS)
+		return fail(
+			`The import was interrupted ${IMPORT_MAX_ATTEMPTS} times and has stopped; nothing was written. Import the file again.`
+		);
+	const rows = (taken.sites ?? []) as SiteDraft[];
+	try {
+		await db.transaction(async (tx) => {
+			for (let i = 0; i < rows.length; i += INSERT_CHUNK_ROWS) {
+				await insertSiteChunk(tx, taken.datasetId, batchId, rows.slice(i, i + INSERT_CHUNK_ROWS));
+				const done = Math.min(rows.length, i + INSERT_CHUNK_ROWS);
+				await db
+					.update(importBatch)
+					.set({ doneRows: done, heartbeatAt: sql`now()` })
+					.where(eq(importBatch.id, batchId));
+				await options.afterChunk?.(done, rows.length);
+			}
+			await tx.execute(sql`UPDATE dataset SET updated_at = now() WHERE id = ${taken.datasetId}`);
+			// The audit row is written with the sites, in the same transaction: both or neither.
+			await recordAudit(
+				tx,
+				{ userId: taken.createdBy },
+				{
+					action: 'import',
+					organisationId: sql`(SELECT ${dataset.organisationId} FROM ${dataset} WHERE ${dataset.id} = ${taken.datasetId})`,
+					datasetId: taken.datasetId,
+					details: { importId: batchId, fileName: taken.fileName, rows: rows.length }
+				}
+			);
+			await tx
+				.update(importBatch)
+				.set({ status: 'done', doneRows: rows.length, finishedAt: new Date(), sites: null })
+				.where(eq(importBatch.id, batchId));
+		});
+		return 'done';
 	} catch (err) {
 		console.error(`[import ${batchId}] rolled back`, err);
-		const message =
+		await recordFailure(
+			db,
+			batchId,
 			(err as { code?: string }).code === '23505'
 				? 'A site code in the file was added to the dataset meanwhile; nothing was written.'
-				: 'The import failed and was rolled back; nothing was written.';
-		await recordFailure(db, batchId, message);
+				: 'The import failed and was rolled back; nothing was written.'
+		);
+		return 'failed';
 	}
 }
 
 /**
  * Mark the batch failed. PostgreSQL itself may be what failed (stopped, restarting), so keep
- * trying for a few minutes rather than give up at once or leave a rejected promise that nothing
- * handles (which would end the process); past that, failStaleImports (stale.ts) ends the batch.
+ * trying for a few minutes rather than give up at once (the batch would stay "running" until a
+ * worker restarts); past that, the stale-heartbeat rule ends it.
  */
 async function recordFailure(db: Db, batchId: string, message: string, tries = 150, waitMs = 2000) {
 	for (let attempt = 1; ; attempt++) {

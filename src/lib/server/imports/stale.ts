@@ -1,4 +1,4 @@
-import { and, eq, lt } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { importBatch } from '../db/schema';
 
@@ -21,7 +21,8 @@ export async function failStaleImports(db: Db, now = new Date()): Promise<number
 		.where(
 			and(
 				eq(importBatch.status, 'running'),
-				lt(importBatch.createdAt, new Date(now.getTime() - STALE_IMPORT_MS))
+				// The last sign of life: a draft may wait long before it is committed.
+				sql`coalesce(${importBatch.heartbeatAt}, ${importBatch.createdAt}) < ${new Date(now.getTime() - STALE_IMPORT_MS).toISOString()}::timestamptz`
 			)
 		)
 		.returning({ id: importBatch.id });

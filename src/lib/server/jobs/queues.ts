@@ -13,7 +13,11 @@ export const QUEUES = {
 	// it expires, then pg-boss hands it to a worker again; the job starts the grid afresh.
 	grid: { name: 'grid', retryLimit: 3, retryDelay: 5, expireInSeconds: 900 },
 	// Embargo release (embargo-release.ts): idempotent, so a failed or missed run is redone by the next.
-	embargoRelease: { name: 'embargo-release', retryLimit: 2, retryDelay: 60, expireInSeconds: 600 }
+	embargoRelease: { name: 'embargo-release', retryLimit: 2, retryDelay: 60, expireInSeconds: 600 },
+	// Writing an import's sites (one transaction, 100 000 rows in well under a minute). A crashed
+	// worker's job comes back after its expiry; the batch itself is also re-queued at start
+	// (import-queue.ts), and fails visibly after IMPORT_MAX_ATTEMPTS takes.
+	import: { name: 'import', retryLimit: 3, retryDelay: 30, expireInSeconds: 900 }
 } as const satisfies Record<string, PgBoss.Queue>;
 
 /** Cron schedules (pg-boss keeps one per queue, whichever instance sets it; UTC). */

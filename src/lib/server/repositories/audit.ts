@@ -17,7 +17,7 @@ export interface AuditInput {
 }
 
 /** Append one event; the actor's name and address are copied from their account as they are now. */
-export async function recordAudit(db: DbOrTx, viewer: Viewer, event: AuditInput) {
+export async function recordAudit(db: DbOrTx, viewer: Pick<Viewer, 'userId'>, event: AuditInput) {
 	const actor = viewer.userId;
 	await db.insert(auditEvent).values({
 		actorId: actor,

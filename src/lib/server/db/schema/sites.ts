@@ -18,6 +18,9 @@ import { pointWgs84 } from '../point';
 import { dataset } from './datasets';
 import { heatFlowMethod } from './heat-flow-method';
 import { siteValueRevision } from './site-values';
+// A cycle with files.ts is fine: references are resolved lazily.
+import { importBatch } from './files';
+import type { SiteFlag } from '../../../sites/flags';
 
 // In its own module so site-values.ts can use it without an import cycle through this file.
 export { heatFlowMethod };
@@ -68,12 +71,17 @@ export const site = pgTable(
 		currentRevisionId: uuid().references((): AnyPgColumn => siteValueRevision.id, {
 			onDelete: 'set null'
 		}),
+		/** Warnings imported anyway (`src/lib/sites/flags.ts`); a map filter can use them. */
+		flags: text().array().$type<SiteFlag[]>().notNull().default([]),
+		/** The import that created the site (its file, corrections and exclusions), if any. */
+		importBatchId: uuid().references((): AnyPgColumn => importBatch.id, { onDelete: 'set null' }),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
 	},
 	(t) => [
 		uniqueIndex('site_dataset_code_idx').on(t.datasetId, t.code),
 		index('site_location_gist').using('gist', t.location),
+		index('site_flags_gin').using('gin', t.flags),
 		// Distance searches in metres cast to geography; a plain geometry index is not used for them.
 		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`)
 	]

@@ -1,47 +1,60 @@
-/** Browser helpers of the upload wizard: hashing the file and talking to the import API. */
-export async function sha256Hex(bytes: ArrayBuffer): Promise<string> {
-	const digest = await crypto.subtle.digest('SHA-256', bytes);
-	return [...new Uint8Array(digest)].map((b) => b.toString(16).padStart(2, '0')).join('');
-}
+/** Browser helpers of the upload wizard: sending the file and talking to the import API. */
+import {
+	batchStatusSchema,
+	previewResponseSchema,
+	uploadedTableSchema,
+	type BatchStatus,
+	type PreviewRequest,
+	type PreviewResponse,
+	type UploadedTable
+} from '$lib/schemas/imports';
+import type { z } from 'zod';
 
-export async function postJson<T>(url: string, body: unknown): Promise<T> {
+async function send<S extends z.ZodType>(
+	method: string,
+	url: string,
+	body: unknown,
+	schema?: S
+): Promise<z.output<S>> {
 	const res = await fetch(url, {
-		method: 'POST',
+		method,
 		headers: { 'content-type': 'application/json' },
-		body: JSON.stringify(body)
+		body: body === undefined ? undefined : JSON.stringify(body)
 	});
 	const data = await res.json().catch(() => ({ message: `${res.status} ${res.statusText}` }));
 	if (!res.ok)
 		throw Object.assign(new Error(data.message ?? 'request failed'), { status: res.status });
-	return data as T;
+	return schema ? schema.parse(data) : data;
 }
 
-export interface PreviewResponse {
-	errorCount: number;
-	warningCount: number;
-	validCount: number;
-	totalRows: number;
-	canImport: boolean;
-	ignoredColumns: string[];
-	issues: { row: number | null; severity: 'error' | 'warning'; column: string; message: string }[];
-	issuesTruncated: boolean;
-	rows: {
-		row: number;
-		ok: boolean;
-		errors: number;
-		warnings: number;
-		site: Record<string, unknown>;
-	}[];
-	reportCsv: string;
-	previousImport: { at: string; rows: number } | null;
+/**
+ * Send the original file to the dataset (it is kept there as the import's provenance), then let
+ * the server parse it into a draft import.
+ */
+export async function uploadForImport(datasetId: string, file: File): Promise<UploadedTable> {
+	const announced = (await send('POST', '/api/v1/attachments', {
+		datasetId,
+		fileName: file.name,
+		sizeBytes: file.size
+	})) as { id: string; uploadUrl: string };
+	const put = await fetch(announced.uploadUrl, { method: 'PUT', body: file });
+	if (!put.ok) {
+		const data = await put.json().catch(() => ({ message: `${put.status} ${put.statusText}` }));
+		throw new Error(data.message ?? 'the upload failed');
+	}
+	return send(
+		'POST',
+		`/api/v1/datasets/${datasetId}/imports`,
+		{ attachmentId: announced.id },
+		uploadedTableSchema
+	);
 }
 
-export interface BatchStatus {
-	status: 'running' | 'done' | 'failed';
-	totalRows: number;
-	doneRows: number;
-	error: string | null;
-}
+export const previewBatch = (batchId: string, request: PreviewRequest): Promise<PreviewResponse> =>
+	send('POST', `/api/v1/imports/${batchId}/preview`, request, previewResponseSchema);
+
+export const commitBatch = (batchId: string, revision: number, allowReimport: boolean) =>
+	send('POST', `/api/v1/imports/${batchId}/commit`, { revision, allowReimport });
 
 /** Poll an import until it finishes, reporting progress. */
 export async function followImport(
@@ -50,9 +63,9 @@ export async function followImport(
 ): Promise<BatchStatus> {
 	for (;;) {
 		const res = await fetch(`/api/v1/imports/${batchId}`);
-		const status = (await res.json()) as BatchStatus;
+		const status = batchStatusSchema.parse(await res.json());
 		onProgress(status);
-		if (status.status !== 'running') return status;
+		if (status.status === 'done' || status.status === 'failed') return status;
 		await new Promise((r) => setTimeout(r, 400));
 	}
 }

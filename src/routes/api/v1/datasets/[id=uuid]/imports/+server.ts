@@ -1,13 +1,21 @@
 import { json } from '@sveltejs/kit';
 import { getDb } from '$lib/server/db';
-import { requireUploader } from '$lib/server/guards';
-import { startImport } from '$lib/server/imports/run-import';
+import { parseBody, requireUser } from '$lib/server/guards';
+import { requireUploadRight, startImport } from '$lib/server/imports/batches';
+import { startImportSchema } from '$lib/schemas/imports';
 import type { RequestHandler } from './$types';
 
-/** Start an atomic import of every row (refused with 400 if any row has an error); poll /api/v1/imports/{batchId}. */
+/**
+ * Start an import from a file uploaded to the dataset (POST /api/v1/attachments, then its
+ * content): the server parses it and answers with its columns and a suggested mapping. Nothing
+ * is written to the dataset's sites until the batch is committed.
+ */
 export const POST: RequestHandler = async (event) => {
-	const { payload } = await requireUploader(event, event.params.id);
-	return json(await startImport(getDb(), event.locals.viewer, event.params.id, payload), {
-		status: 202
+	requireUser(event, 'action');
+	// The right first, so a hidden dataset is a 404 whatever the body.
+	await requireUploadRight(getDb(), event.locals.viewer, event.params.id);
+	const body = await parseBody(event, startImportSchema);
+	return json(await startImport(getDb(), event.locals.viewer, event.params.id, body.attachmentId), {
+		status: 201
 	});
 };
