@@ -17,7 +17,7 @@ import type { SiteListQuery } from '$lib/sites/list-query';
 import type { SiteSummary } from '$lib/sites/summary';
 import { visibleDatasets, visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { dataset, organisation, site } from '../db/schema';
+import { dataset, organisation, site, temperatureLog } from '../db/schema';
 
 export interface BoundingBox {
 	west: number;
@@ -46,7 +46,7 @@ const siteSummaryColumns = {
 } satisfies Record<keyof SiteSummary, unknown>;
 
 /** The shared site filters ($lib/sites/filters.ts) as SQL; `page` is the caller's business. */
-function filterConditions(f: SiteFilters): SQL[] {
+export function filterConditions(f: SiteFilters): SQL[] {
 	const conditions: SQL[] = [];
 	if (f.quality.length) conditions.push(inArray(site.qualityClass, f.quality));
 	if (f.method.length) conditions.push(inArray(site.method, f.method));
@@ -55,6 +55,15 @@ function filterConditions(f: SiteFilters): SQL[] {
 	if (f.q) {
 		const pattern = `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 		conditions.push(or(ilike(site.code, pattern), ilike(site.name, pattern))!);
+	}
+	if (f.organisation.length) conditions.push(inArray(dataset.organisationId, f.organisation));
+	if (f.dataset.length) conditions.push(inArray(site.datasetId, f.dataset));
+	if (f.yearFrom !== null) conditions.push(gte(site.yearMeasured, f.yearFrom));
+	if (f.yearTo !== null) conditions.push(lte(site.yearMeasured, f.yearTo));
+	if (f.hasLog) {
+		conditions.push(
+			sql`EXISTS (SELECT 1 FROM ${temperatureLog} WHERE ${temperatureLog.siteId} = ${site.id})`
+		);
 	}
 	return conditions;
 }

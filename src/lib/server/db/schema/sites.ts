@@ -69,7 +69,10 @@ export const site = pgTable(
 		uniqueIndex('site_dataset_code_idx').on(t.datasetId, t.code),
 		index('site_location_gist').using('gist', t.location),
 		// Distance searches in metres cast to geography; a plain geometry index is not used for them.
-		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`)
+		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`),
+		// Map search by the start of a code or name (lower(…) LIKE 'abc%'), migration 0011.
+		index('site_code_lower_prefix_idx').using('btree', sql`lower(${t.code}) text_pattern_ops`),
+		index('site_name_lower_prefix_idx').using('btree', sql`lower(${t.name}) text_pattern_ops`)
 	]
 );
 
