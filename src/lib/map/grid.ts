@@ -15,7 +15,7 @@ export const CELL_PX = 48;
 export const MIN_ZOOM = 0;
 export const MAX_ZOOM = 22;
 /** From this zoom individual sites are sent, when the view holds at most MAX_SITES of them. */
-export const SITE_ZOOM = 9;
+export const SITE_ZOOM = 6;
 export const MAX_SITES = 3000;
 
 /** Width of one cell in Web Mercator metres at a zoom (256-px tiles). */

@@ -9,11 +9,12 @@ import {
 	type MapCell,
 	type MapData
 } from '$lib/map/grid';
+import { HISTOGRAM_BIN_MWM2, HISTOGRAM_MAX_MWM2, type RegionStatistics } from '$lib/map/region';
+import type { SiteSearchHit } from '$lib/map/search';
 import type { SiteFilters } from '$lib/sites/filters';
-import type { QualityClass } from '$lib/sites/quality';
 import { visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { dataset, site } from '../db/schema';
+import { dataset, organisation, site } from '../db/schema';
 import { filterConditions, visibleSitesInBox, type BoundingBox } from './sites';
 
 /**
@@ -88,8 +89,12 @@ export async function mapData(
 	filters: SiteFilters
 ): Promise<MapData> {
 	if (zoom >= SITE_ZOOM) {
-		const sites = await visibleSitesInBox(db, viewer, box, filters, MAX_SITES + 1);
-		if (sites.length <= MAX_SITES) return { kind: 'sites', zoom, count: sites.length, sites };
+		// Unordered, so a crowded view stops at MAX_SITES + 1 rows; sorted here for a stable ETag.
+		const sites = await visibleSitesInBox(db, viewer, box, filters, MAX_SITES + 1, false);
+		if (sites.length <= MAX_SITES) {
+			sites.sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : a.id < b.id ? -1 : 1));
+			return { kind: 'sites', zoom, count: sites.length, sites };
+		}
 	}
 	const cells = await mapCells(db, viewer, box, zoom, filters);
 	const total = cells.reduce((n, c) => n + c.count, 0);
@@ -108,15 +113,6 @@ export async function countMatchingSites(
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
 		.where(where(viewer, filters));
 	return row.n;
-}
-
-/** One search hit: enough to fly to the site and open it. */
-export interface SiteSearchHit {
-	id: string;
-	code: string;
-	name: string | null;
-	lon: number;
-	lat: number;
 }
 
 /** Visible sites whose code or name starts with `prefix` (case-insensitive), by code. */
@@ -146,27 +142,6 @@ export async function searchVisibleSites(
 		)
 		.orderBy(asc(site.code))
 		.limit(limit);
-}
-
-/** Heat-flow histogram bin width (mW/m²) and range of the region statistics. */
-export const HISTOGRAM_BIN_MWM2 = 10;
-export const HISTOGRAM_MAX_MWM2 = 200;
-
-export interface RegionStatistics {
-	count: number;
-	/** Sites with a heat-flow value: the statistics below are of these. */
-	withValue: number;
-	meanMWm2: number | null;
-	medianMWm2: number | null;
-	/** Sample standard deviation (n − 1); null with fewer than two values. */
-	stdDevMWm2: number | null;
-	p10MWm2: number | null;
-	p90MWm2: number | null;
-	minMWm2: number | null;
-	maxMWm2: number | null;
-	/** Bins [from, from + HISTOGRAM_BIN_MWM2); the last one holds everything from HISTOGRAM_MAX_MWM2. */
-	histogram: { fromMWm2: number; count: number }[];
-	quality: { qualityClass: QualityClass | null; count: number }[];
 }
 
 /**
@@ -228,4 +203,30 @@ export async function regionStatistics(
 		histogram: bins.map((b) => ({ fromMWm2: b.bin * HISTOGRAM_BIN_MWM2, count: b.count })),
 		quality
 	};
+}
+
+/** The organisations and datasets the filter panel offers: those with data on the viewer's maps. */
+export async function mapFilterOptions(db: Db, viewer: Viewer) {
+	const rows = await db
+		.select({
+			datasetId: dataset.id,
+			title: dataset.title,
+			organisationId: dataset.organisationId,
+			organisationName: organisation.name
+		})
+		.from(dataset)
+		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
+		.where(visibleOnMaps(viewer))
+		.orderBy(asc(organisation.name), asc(dataset.title));
+	const organisations = [
+		...new Map(
+			rows.map((r) => [r.organisationId, { id: r.organisationId, name: r.organisationName }])
+		).values()
+	];
+	const datasets = rows.map((r) => ({
+		id: r.datasetId,
+		title: r.title,
+		organisationId: r.organisationId
+	}));
+	return { organisations, datasets };
 }

@@ -70,17 +70,19 @@ export function filterConditions(f: SiteFilters): SQL[] {
 
 /**
  * Sites the viewer may see on maps (retired datasets left out) inside a WGS 84 bounding box (uses the GiST index on location),
- * at most `limit` rows, ordered by code for stable paging.
+ * at most `limit` rows, ordered by code for stable paging (`ordered`; without it the database
+ * may stop at `limit` rows instead of sorting every match, which the map needs at scale).
  */
 export async function visibleSitesInBox(
 	db: Db,
 	viewer: Viewer,
 	box: BoundingBox,
 	filters: SiteFilters = NO_FILTERS,
-	limit = 100_000
+	limit = 100_000,
+	ordered = true
 ): Promise<SiteSummary[]> {
 	const envelope = sql`ST_MakeEnvelope(${box.west}, ${box.south}, ${box.east}, ${box.north}, 4326)`;
-	return db
+	const query = db
 		.select(siteSummaryColumns)
 		.from(site)
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
@@ -88,8 +90,8 @@ export async function visibleSitesInBox(
 		.where(
 			and(sql`${site.location} && ${envelope}`, visibleOnMaps(viewer), ...filterConditions(filters))
 		)
-		.orderBy(asc(site.code))
-		.limit(limit);
+		.$dynamic();
+	return (ordered ? query.orderBy(asc(site.code)) : query).limit(limit);
 }
 
 const SORTS = {
