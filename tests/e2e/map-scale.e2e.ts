@@ -121,6 +121,17 @@ describe('the map at scale, in a browser', () => {
 		await page.getByTestId('open-filters').click();
 		await page.getByTestId('map-filters').waitFor({ state: 'visible' });
 		await screenshot(page, 'map-scale-390-filters');
+		// The region tool by keyboard: the current view as the region.
+		await page.getByTestId('region-view').focus();
+		await page.keyboard.press('Enter');
+		const stats = page.getByTestId('region-stats');
+		await stats.waitFor({ timeout: 15_000 });
+		const bbox = await stats.getAttribute('data-bbox');
+		const region = await (await fetch(`${appUrl()}/api/v1/map/region?bbox=${bbox}`)).json();
+		expect(region.count).toBeGreaterThan(0);
+		await expect
+			.poll(() => page.getByTestId('region-count').textContent())
+			.toBe(region.count.toLocaleString('en'));
 		await page.getByLabel('Close filters').click();
 		await page.getByTestId('map-filters').waitFor({ state: 'hidden' });
 		expect(errors).toEqual([]);
