@@ -360,7 +360,17 @@ const ROUTES: Record<string, Row> = {
 	'/(auth)/reset-password': { none: 'accounts: tests/e2e/accounts.e2e.ts' },
 	'/(app)/account': { none: "the viewer's own account and memberships only" },
 	'/(app)/admin': { none: 'accounts and organisations, no datasets: permissions-matrix.spec.ts' },
-	'/(app)/map': { none: 'tile settings only; the sites come from /api/v1/sites.geojson' },
+	'/(app)/map': {
+		checks: [
+			{
+				name: "dataset filter list (datasets on the viewer's maps)",
+				run: async (k, c) => {
+					const html = await textOnce(k, '/map');
+					expect(html.includes(title(c))).toBe(sees(k, c) && CASES[c].map);
+				}
+			}
+		]
+	},
 	'/(app)/organisations': {
 		checks: [
 			{
@@ -658,6 +668,64 @@ const ROUTES: Record<string, Row> = {
 					const body = JSON.parse(await textOnce(k, `/api/v1/sites.geojson?bbox=${bbox}`));
 					const found = body.features.map((f: { id: string }) => f.id);
 					expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
+				}
+			}
+		]
+	},
+	'/api/v1/map': {
+		checks: [
+			{
+				name: 'map data (cells at zoom 3, single sites at zoom 12)',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const shown = sees(k, c) && CASES[c].map;
+					const cells = JSON.parse(await text(k, `/api/v1/map?bbox=${bbox}&zoom=3&q=${code}`));
+					expect(cells.kind).toBe('cells');
+					expect(cells.count).toBe(shown ? 1 : 0);
+					expect(cells.cells.length).toBe(shown ? 1 : 0);
+					const body = JSON.parse(await textOnce(k, `/api/v1/map?bbox=${bbox}&zoom=12&q=${run}`));
+					const found = body.sites.map((s: { id: string }) => s.id);
+					expect(found.includes(ids[c].site)).toBe(shown);
+				}
+			}
+		]
+	},
+	'/api/v1/map/count': {
+		checks: [
+			{
+				name: 'matching-site count',
+				run: async (k, c) => {
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const body = JSON.parse(await text(k, `/api/v1/map/count?q=${code}`));
+					expect(body.count).toBe(sees(k, c) && CASES[c].map ? 1 : 0);
+				}
+			}
+		]
+	},
+	'/api/v1/map/search': {
+		checks: [
+			{
+				name: 'site search by code prefix',
+				run: async (k, c) => {
+					const body = JSON.parse(
+						await textOnce(k, `/api/v1/map/search?q=MX-${caseNames.indexOf(c)}-${run}`)
+					);
+					const found = body.sites.map((s: { id: string }) => s.id);
+					expect(found.includes(ids[c].site)).toBe(sees(k, c) && CASES[c].map);
+				}
+			}
+		]
+	},
+	'/api/v1/map/region': {
+		checks: [
+			{
+				name: 'region statistics',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const body = JSON.parse(await text(k, `/api/v1/map/region?bbox=${bbox}&q=${code}`));
+					expect(body.count).toBe(sees(k, c) && CASES[c].map ? 1 : 0);
 				}
 			}
 		]

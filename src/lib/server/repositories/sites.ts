@@ -17,7 +17,7 @@ import type { SiteListQuery } from '$lib/sites/list-query';
 import type { SiteSummary } from '$lib/sites/summary';
 import { visibleDatasets, visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { dataset, organisation, site } from '../db/schema';
+import { dataset, organisation, site, temperatureLog } from '../db/schema';
 
 export interface BoundingBox {
 	west: number;
@@ -56,22 +56,33 @@ export function siteFilterConditions(f: SiteFilters): SQL[] {
 		const pattern = `%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 		conditions.push(or(ilike(site.code, pattern), ilike(site.name, pattern))!);
 	}
+	if (f.organisation.length) conditions.push(inArray(dataset.organisationId, f.organisation));
+	if (f.dataset.length) conditions.push(inArray(site.datasetId, f.dataset));
+	if (f.yearFrom !== null) conditions.push(gte(site.yearMeasured, f.yearFrom));
+	if (f.yearTo !== null) conditions.push(lte(site.yearMeasured, f.yearTo));
+	if (f.hasLog) {
+		conditions.push(
+			sql`EXISTS (SELECT 1 FROM ${temperatureLog} WHERE ${temperatureLog.siteId} = ${site.id})`
+		);
+	}
 	return conditions;
 }
 
 /**
  * Sites the viewer may see on maps (retired datasets left out) inside a WGS 84 bounding box (uses the GiST index on location),
- * at most `limit` rows, ordered by code for stable paging.
+ * at most `limit` rows, ordered by code for stable paging (`ordered`; without it the database
+ * may stop at `limit` rows instead of sorting every match, which the map needs at scale).
  */
 export async function visibleSitesInBox(
 	db: Db,
 	viewer: Viewer,
 	box: BoundingBox,
 	filters: SiteFilters = NO_FILTERS,
-	limit = 100_000
+	limit = 100_000,
+	ordered = true
 ): Promise<SiteSummary[]> {
 	const envelope = sql`ST_MakeEnvelope(${box.west}, ${box.south}, ${box.east}, ${box.north}, 4326)`;
-	return db
+	const query = db
 		.select(siteSummaryColumns)
 		.from(site)
 		.innerJoin(dataset, eq(site.datasetId, dataset.id))
@@ -83,8 +94,8 @@ export async function visibleSitesInBox(
 				...siteFilterConditions(filters)
 			)
 		)
-		.orderBy(asc(site.code))
-		.limit(limit);
+		.$dynamic();
+	return (ordered ? query.orderBy(asc(site.code)) : query).limit(limit);
 }
 
 const SORTS = {

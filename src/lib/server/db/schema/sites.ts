@@ -83,7 +83,10 @@ export const site = pgTable(
 		index('site_location_gist').using('gist', t.location),
 		index('site_flags_gin').using('gin', t.flags),
 		// Distance searches in metres cast to geography; a plain geometry index is not used for them.
-		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`)
+		index('site_location_geog_gist').using('gist', sql`(${t.location}::geography)`),
+		// Map search by the start of a code or name (lower(…) LIKE 'abc%'), migration 0011.
+		index('site_code_lower_prefix_idx').using('btree', sql`lower(${t.code}) text_pattern_ops`),
+		index('site_name_lower_prefix_idx').using('btree', sql`lower(${t.name}) text_pattern_ops`)
 	]
 );
 

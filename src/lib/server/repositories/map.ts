@@ -1,0 +1,232 @@
+import { and, asc, count, eq, or, sql, type SQL } from 'drizzle-orm';
+import {
+	CELL_PX,
+	cellSizeM,
+	MAX_SITES,
+	MERCATOR_MAX_LAT,
+	MERCATOR_RADIUS_M,
+	SITE_ZOOM,
+	type MapCell,
+	type MapData
+} from '$lib/map/grid';
+import { HISTOGRAM_BIN_MWM2, HISTOGRAM_MAX_MWM2, type RegionStatistics } from '$lib/map/region';
+import type { SiteSearchHit } from '$lib/map/search';
+import type { SiteFilters } from '$lib/sites/filters';
+import { visibleOnMaps, type Viewer } from '../access';
+import type { Db } from '../db/client';
+import { dataset, organisation, site } from '../db/schema';
+import { siteFilterConditions, visibleSitesInBox, type BoundingBox } from './sites';
+
+/**
+ * The map's data at scale. Every query here joins `dataset` and adds visibleOnMaps (the one map
+ * rule) and the shared filters before anything is counted or grouped, so a cell, a count or a
+ * statistic only ever holds sites the viewer may see: a hidden site never makes a cell appear.
+ */
+
+const envelope = (box: BoundingBox) =>
+	sql`ST_MakeEnvelope(${box.west}, ${box.south}, ${box.east}, ${box.north}, 4326)`;
+
+function where(viewer: Viewer, filters: SiteFilters, box?: BoundingBox): SQL {
+	return and(
+		box ? sql`${site.location} && ${envelope(box)}` : undefined,
+		visibleOnMaps(viewer),
+		...siteFilterConditions(filters)
+	)!;
+}
+
+/**
+ * Cell index expressions in Web Mercator metres, written out (not ST_Transform) because plain
+ * arithmetic on ST_X/ST_Y is several times cheaper per row. The numbers are ours (from the zoom),
+ * inlined so SELECT and GROUP BY are the same expression.
+ */
+function cellIndex(zoom: number) {
+	const size = cellSizeM(zoom);
+	const perDegree = (Math.PI * MERCATOR_RADIUS_M) / 180;
+	const ix = sql<number>`floor(ST_X(${site.location}) * ${sql.raw(String(perDegree))} / ${sql.raw(String(size))})::int`;
+	const iy = sql<number>`floor(${sql.raw(String(MERCATOR_RADIUS_M))} * ln(tan(pi() / 4 + radians(greatest(${sql.raw(String(-MERCATOR_MAX_LAT))}, least(${sql.raw(String(MERCATOR_MAX_LAT))}, ST_Y(${site.location})))) / 2)) / ${sql.raw(String(size))})::int`;
+	return { ix, iy };
+}
+
+/** Grid cells of the visible, matching sites in a box at a zoom. */
+export async function mapCells(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters
+): Promise<MapCell[]> {
+	const { ix, iy } = cellIndex(zoom);
+	const hf = site.heatFlowMWm2;
+	const rows = await db
+		.select({
+			ix,
+			iy,
+			count: sql<number>`count(*)::int`,
+			meanMWm2: sql<number | null>`avg(${hf})::float8`,
+			medianMWm2: sql<number | null>`percentile_cont(0.5) WITHIN GROUP (ORDER BY ${hf})`,
+			minMWm2: sql<number | null>`min(${hf})`,
+			maxMWm2: sql<number | null>`max(${hf})`
+		})
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(where(viewer, filters, box))
+		.groupBy(ix, iy);
+	return rows.map((r) => ({
+		...r,
+		meanMWm2: r.meanMWm2 === null ? null : Math.round(r.meanMWm2 * 10) / 10
+	}));
+}
+
+/**
+ * What the map draws for a view: single sites from SITE_ZOOM when the view holds at most
+ * MAX_SITES of them, otherwise cells.
+ */
+export async function mapData(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters
+): Promise<MapData> {
+	if (zoom >= SITE_ZOOM) {
+		// Unordered, so a crowded view stops at MAX_SITES + 1 rows; sorted here for a stable ETag.
+		const sites = await visibleSitesInBox(db, viewer, box, filters, MAX_SITES + 1, false);
+		if (sites.length <= MAX_SITES) {
+			sites.sort((a, b) => (a.code < b.code ? -1 : a.code > b.code ? 1 : a.id < b.id ? -1 : 1));
+			return { kind: 'sites', zoom, count: sites.length, sites };
+		}
+	}
+	const cells = await mapCells(db, viewer, box, zoom, filters);
+	const total = cells.reduce((n, c) => n + c.count, 0);
+	return { kind: 'cells', zoom, cellPx: CELL_PX, count: total, cells };
+}
+
+/** How many visible sites match the filters anywhere (the filter panel's live count). */
+export async function countMatchingSites(
+	db: Db,
+	viewer: Viewer,
+	filters: SiteFilters
+): Promise<number> {
+	const [row] = await db
+		.select({ n: count() })
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(where(viewer, filters));
+	return row.n;
+}
+
+/** Visible sites whose code or name starts with `prefix` (case-insensitive), by code. */
+export async function searchVisibleSites(
+	db: Db,
+	viewer: Viewer,
+	prefix: string,
+	limit = 10
+): Promise<SiteSearchHit[]> {
+	// lower(…) LIKE 'prefix%' uses the text_pattern_ops indexes of migration 0011.
+	const pattern = `${prefix.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+	return db
+		.select({
+			id: site.id,
+			code: site.code,
+			name: site.name,
+			lon: sql<number>`ST_X(${site.location})`,
+			lat: sql<number>`ST_Y(${site.location})`
+		})
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(
+			and(
+				or(sql`lower(${site.code}) LIKE ${pattern}`, sql`lower(${site.name}) LIKE ${pattern}`),
+				visibleOnMaps(viewer)
+			)
+		)
+		.orderBy(asc(site.code))
+		.limit(limit);
+}
+
+/**
+ * Statistics of the visible, matching sites inside a box. Percentiles are PostgreSQL's
+ * percentile_cont (linear interpolation between order statistics, definition 7 of Hyndman & Fan
+ * 1996, from memory); the standard deviation is the sample one (stddev_samp).
+ */
+export async function regionStatistics(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	filters: SiteFilters
+): Promise<RegionStatistics> {
+	const hf = site.heatFlowMWm2;
+	const condition = where(viewer, filters, box);
+	const bin = sql<number>`least(floor(${hf} / ${sql.raw(String(HISTOGRAM_BIN_MWM2))}), ${sql.raw(String(HISTOGRAM_MAX_MWM2 / HISTOGRAM_BIN_MWM2))})::int`;
+	const [[stats], bins, quality] = await Promise.all([
+		db
+			.select({
+				count: sql<number>`count(*)::int`,
+				withValue: sql<number>`count(${hf})::int`,
+				meanMWm2: sql<number | null>`avg(${hf})::float8`,
+				stdDevMWm2: sql<number | null>`stddev_samp(${hf})::float8`,
+				p: sql<
+					number[] | null
+				>`percentile_cont(ARRAY[0.1, 0.5, 0.9]) WITHIN GROUP (ORDER BY ${hf})`,
+				minMWm2: sql<number | null>`min(${hf})`,
+				maxMWm2: sql<number | null>`max(${hf})`
+			})
+			.from(site)
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(condition),
+		db
+			.select({ bin, count: sql<number>`count(*)::int` })
+			.from(site)
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(and(condition, sql`${hf} IS NOT NULL`))
+			.groupBy(bin)
+			.orderBy(bin),
+		db
+			.select({ qualityClass: site.qualityClass, count: sql<number>`count(*)::int` })
+			.from(site)
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(condition)
+			.groupBy(site.qualityClass)
+			.orderBy(site.qualityClass)
+	]);
+	const p = stats.withValue > 0 && stats.p ? stats.p.map(Number) : null;
+	return {
+		count: stats.count,
+		withValue: stats.withValue,
+		meanMWm2: stats.meanMWm2,
+		medianMWm2: p ? p[1] : null,
+		stdDevMWm2: stats.stdDevMWm2,
+		p10MWm2: p ? p[0] : null,
+		p90MWm2: p ? p[2] : null,
+		minMWm2: stats.minMWm2,
+		maxMWm2: stats.maxMWm2,
+		histogram: bins.map((b) => ({ fromMWm2: b.bin * HISTOGRAM_BIN_MWM2, count: b.count })),
+		quality
+	};
+}
+
+/** The organisations and datasets the filter panel offers: those with data on the viewer's maps. */
+export async function mapFilterOptions(db: Db, viewer: Viewer) {
+	const rows = await db
+		.select({
+			datasetId: dataset.id,
+			title: dataset.title,
+			organisationId: dataset.organisationId,
+			organisationName: organisation.name
+		})
+		.from(dataset)
+		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
+		.where(visibleOnMaps(viewer))
+		.orderBy(asc(organisation.name), asc(dataset.title));
+	const organisations = [
+		...new Map(
+			rows.map((r) => [r.organisationId, { id: r.organisationId, name: r.organisationName }])
+		).values()
+	];
+	const datasets = rows.map((r) => ({
+		id: r.datasetId,
+		title: r.title,
+		organisationId: r.organisationId
+	}));
+	return { organisations, datasets };
+}
