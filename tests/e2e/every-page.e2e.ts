@@ -68,9 +68,30 @@ async function serious(page: Page): Promise<Finding[]> {
 	});
 }
 
-/** How far the page is wider than the window, in CSS pixels (0: no sideways scrolling). */
-const overflowPx = (page: Page) =>
-	page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+/**
+ * How far the page is wider than the window, in CSS pixels (0: no sideways scrolling), and the
+ * outermost elements that stick out, so a failure says where to look.
+ */
+const overflowOf = (page: Page) =>
+	page.evaluate(() => {
+		const width = window.innerWidth;
+		const over = document.documentElement.scrollWidth - width;
+		const culprits: string[] = [];
+		if (over > 0) {
+			for (const el of Array.from(document.body.querySelectorAll('*'))) {
+				const right = el.getBoundingClientRect().right;
+				const parent = el.parentElement;
+				if (right > width + 1 && !(parent && parent.getBoundingClientRect().right > width + 1)) {
+					const cls = (el.getAttribute('class') ?? '').split(/\s+/).slice(0, 3).join('.');
+					culprits.push(
+						`${el.tagName.toLowerCase()}${cls ? '.' + cls : ''} (${Math.round(right)} px)`
+					);
+					if (culprits.length === 3) break;
+				}
+			}
+		}
+		return { over, culprits };
+	});
 
 /** One page at both sizes: a list of what is wrong, empty when nothing is. */
 async function problemsOf(context: BrowserContext, who: string, p: string) {
@@ -82,8 +103,9 @@ async function problemsOf(context: BrowserContext, who: string, p: string) {
 		expect(response?.status(), p).toBeLessThan(400);
 		const name = `${who}${p === '/' ? '-home' : p.replace(/[^a-z0-9]+/gi, '-')}`.slice(0, 80);
 		await screenshot(page, `pages/${name}-${size.name}`);
-		const over = await overflowPx(page);
-		if (over > 0) problems.push(`${p} at ${size.width} px is ${over} px too wide`);
+		const { over, culprits } = await overflowOf(page);
+		if (over > 0)
+			problems.push(`${p} at ${size.width} px is ${over} px too wide: ${culprits.join(', ')}`);
 		for (const f of await serious(page))
 			problems.push(`${p} at ${size.width} px: ${f.impact} ${f.id} (${f.help}) at ${f.targets}`);
 	}

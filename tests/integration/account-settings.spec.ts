@@ -34,14 +34,20 @@ describe('account settings', () => {
 		const approval = await waitForMail(email, 'Approve the change');
 		expect(approval.text).toContain(newEmail);
 		const approve = linkIn(approval.text);
-		const approved = await client.get(approve.pathname + approve.search);
+		// The link is used once, then the page shows the outcome on a fresh request.
+		const used = await client.get(approve.pathname + approve.search);
+		expect(used.status).toBe(303);
+		expect(used.headers.get('location')).toBe('/verify-email?done=approved');
+		const approved = await client.get('/verify-email?done=approved');
 		expect(approved.status).toBe(200);
 		expect(await approved.text()).toContain('Change approved');
 		expect(await addressOf(email)).toBe(1);
 		// Step 2: the new address confirms it is reachable; only now does the account move.
 		const confirm = await waitForMail(newEmail, 'Confirm your e-mail address');
 		const link = linkIn(confirm.text);
-		expect((await client.get(link.pathname + link.search)).status).toBe(200);
+		const confirmed = await client.get(link.pathname + link.search);
+		expect(confirmed.status).toBe(303);
+		expect(confirmed.headers.get('location')).toBe('/verify-email?done=verified');
 		expect(await addressOf(email)).toBe(0);
 		expect(await addressOf(newEmail)).toBe(1);
 	});

@@ -576,7 +576,13 @@ const ROUTES: Record<string, Row> = {
 					expect(res.status).toBe(200);
 					const body = await res.json();
 					expect(body.metadata.citation).toContain(title(c));
-					expect(body.features).toHaveLength(1);
+					// Every site of the dataset (other rows add sites to the case datasets), once.
+					const sites = await db
+						.select({ id: site.id })
+						.from(site)
+						.where(eq(site.datasetId, ids[c].dataset));
+					expect(body.features).toHaveLength(sites.length);
+					expect(JSON.stringify(body)).toContain(`MX-${caseNames.indexOf(c)}-${run}`);
 				}
 			}
 		]
