@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { readTypedNumber } from '$lib/forms/typed-number';
 import { HEAT_FLOW_METHODS } from '$lib/sites/methods';
 
 /**
@@ -16,14 +17,13 @@ const optionalNumber = (message: string) =>
 		.string()
 		.optional()
 		.transform((s, ctx) => {
-			const t = (s ?? '').trim();
-			if (t === '') return undefined;
-			const n = Number(t.replace(',', '.'));
-			if (!Number.isFinite(n)) {
-				ctx.addIssue({ code: 'custom', message });
+			const r = readTypedNumber(s ?? '');
+			if (!r.ok) {
+				// An ambiguous comma ("1,250") is explained in its own words; anything else gets the field's.
+				ctx.addIssue({ code: 'custom', message: r.message.startsWith('“') ? r.message : message });
 				return z.NEVER;
 			}
-			return n;
+			return r.value ?? undefined;
 		});
 
 /** Text fields of a table of rows (`name0`, `name1`, …), parsed in the table's own refinement. */
@@ -39,10 +39,8 @@ const issue = (ctx: Ctx, path: string, message: string) =>
 
 /** The number in a row cell: undefined when blank, NaN when not a finite number. */
 function cell(v: unknown, key: string): number | undefined {
-	const t = String((v as Record<string, unknown>)[key] ?? '').trim();
-	if (t === '') return undefined;
-	const n = Number(t.replace(',', '.'));
-	return Number.isFinite(n) ? n : NaN;
+	const r = readTypedNumber(String((v as Record<string, unknown>)[key] ?? ''));
+	return r.ok ? (r.value ?? undefined) : NaN;
 }
 
 /** Reads the rows of a table: blank rows skipped, each bad cell reported on its own field. */
