@@ -81,7 +81,16 @@ const overflowOf = (page: Page) =>
 			for (const el of Array.from(document.body.querySelectorAll('*'))) {
 				const right = el.getBoundingClientRect().right;
 				const parent = el.parentElement;
-				if (right > width + 1 && !(parent && parent.getBoundingClientRect().right > width + 1)) {
+				// Parts of a box that clips them (a scrolling table, a map) do not widen the page.
+				let clipped = false;
+				for (let a = parent; a && a !== document.body; a = a.parentElement) {
+					if (getComputedStyle(a).overflowX !== 'visible') clipped = true;
+				}
+				if (
+					!clipped &&
+					right > width + 1 &&
+					!(parent && parent.getBoundingClientRect().right > width + 1)
+				) {
 					const cls = (el.getAttribute('class') ?? '').split(/\s+/).slice(0, 3).join('.');
 					culprits.push(
 						`${el.tagName.toLowerCase()}${cls ? '.' + cls : ''} (${Math.round(right)} px)`

@@ -97,7 +97,9 @@ export function createAuth(s: AuthSettings) {
 				// The page to come back to (an invitation, say) rides along in the link; the
 				// confirmation page checks it again with the open-redirect rule before following it.
 				const next = new URL(url).searchParams.get('callbackURL');
-				const back = next?.startsWith('/') ? `&next=${encodeURIComponent(next)}` : '';
+				// better-auth passes "/" when no page asked to be returned to (a change of address).
+				const back =
+					next?.startsWith('/') && next !== '/' ? `&next=${encodeURIComponent(next)}` : '';
 				await s.send(
 					user.email,
 					mailTemplates.verifyEmail(user.name, link('/verify-email', token) + back)
