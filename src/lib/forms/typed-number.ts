@@ -42,3 +42,9 @@ export function requirementInWords(requirement: string, entered: unknown): strin
 	const shown = typeof entered === 'number' && Number.isFinite(entered) ? String(entered) : null;
 	return shown === null ? words : `${words} (you entered ${shown.replace('-', '\u2212')})`;
 }
+
+/** A form field's live check for a number typed by a person (blank is allowed: the form says if it is required). */
+export function typedNumberCheck(text: string): string | undefined {
+	const r = readTypedNumber(text);
+	return r.ok ? undefined : r.message;
+}
