@@ -112,6 +112,7 @@ describe('audit rows', () => {
 				`create ${EMAIL.contributor}`,
 				`edit ${EMAIL.contributor}`,
 				`upload ${EMAIL.contributor}`,
+				`import-start ${EMAIL.contributor}`,
 				`import ${EMAIL.contributor}`,
 				`submit ${EMAIL.contributor}`,
 				`return ${EMAIL.curator}`,
@@ -128,6 +129,10 @@ describe('audit rows', () => {
 			fileName: 'notes.csv'
 		});
 		expect(byDataset.find((r) => r.action === 'import')!.details).toMatchObject({ rows: 3 });
+		expect(byDataset.find((r) => r.action === 'import-start')!.details).toMatchObject({
+			importId: batchId,
+			rows: 3
+		});
 
 		ok(
 			await c.owner.post(`/organisations/korvald-survey/settings?/changeRole`, {
