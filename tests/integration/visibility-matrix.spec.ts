@@ -578,7 +578,12 @@ const ROUTES: Record<string, Row> = {
 					expect(res.status).toBe(200);
 					const body = await res.json();
 					expect(body.metadata.citation).toContain(title(c));
-					expect(body.features).toHaveLength(1);
+					// The case's site (the grid rows above add three more to every case).
+					const codes = (body.features as { properties: { code: string } }[]).map(
+						(f) => f.properties.code
+					);
+					expect(codes).toContain(`MX-${caseNames.indexOf(c)}-${run}`);
+					expect(codes).toHaveLength(4);
 				}
 			}
 		]
