@@ -112,6 +112,8 @@ describe('audit rows', () => {
 				`create ${EMAIL.contributor}`,
 				`edit ${EMAIL.contributor}`,
 				`upload ${EMAIL.contributor}`,
+				// The imported file is kept with the dataset: an upload of its own.
+				`upload ${EMAIL.contributor}`,
 				`import-start ${EMAIL.contributor}`,
 				`import ${EMAIL.contributor}`,
 				`submit ${EMAIL.contributor}`,

@@ -579,8 +579,8 @@ const ROUTES: Record<string, Row> = {
 					const body = await res.json();
 					expect(body.metadata.citation).toContain(title(c));
 					// The case's site (the grid rows above add three more to every case).
-					const codes = (body.features as { properties: { code: string } }[]).map(
-						(f) => f.properties.code
+					const codes = (body.features as { properties: { site_code: string } }[]).map(
+						(f) => f.properties.site_code
 					);
 					expect(codes).toContain(`MX-${caseNames.indexOf(c)}-${run}`);
 					expect(codes).toHaveLength(4);
