@@ -112,8 +112,9 @@ describe('audit rows', () => {
 				`create ${EMAIL.contributor}`,
 				`edit ${EMAIL.contributor}`,
 				`upload ${EMAIL.contributor}`,
-				// The imported file itself is kept with the dataset: uploaded, then imported.
+				// The imported file is kept with the dataset: an upload of its own.
 				`upload ${EMAIL.contributor}`,
+				`import-start ${EMAIL.contributor}`,
 				`import ${EMAIL.contributor}`,
 				`submit ${EMAIL.contributor}`,
 				`return ${EMAIL.curator}`,
@@ -130,6 +131,10 @@ describe('audit rows', () => {
 			byDataset.filter((r) => r.action === 'upload').map((r) => r.details.fileName).sort()
 		).toEqual([`audit-${run}.csv`, 'notes.csv'].sort());
 		expect(byDataset.find((r) => r.action === 'import')!.details).toMatchObject({ rows: 3 });
+		expect(byDataset.find((r) => r.action === 'import-start')!.details).toMatchObject({
+			importId: batchId,
+			rows: 3
+		});
 
 		ok(
 			await c.owner.post(`/organisations/korvald-survey/settings?/changeRole`, {

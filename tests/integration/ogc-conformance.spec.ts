@@ -108,6 +108,13 @@ describe('OGC API – Features Core: collections', () => {
 		expect(one.extent).toEqual(listed.extent);
 		expect(one.license).toBe('CC-BY-4.0');
 		expect(linkOf(one, 'license')!.href).toBe('https://spdx.org/licenses/CC-BY-4.0.html');
+		// The built citation (as on the dataset page and in downloads), not the free-text note.
+		expect(one.citation).toMatch(
+			new RegExp(
+				`^Korvald.*\\(\\d{4}\\)\\. OGC open ${fx.run}, version 1 \\[data set\\]\\. .*Licence CC-BY-4\\.0\\. https?://\\S+/datasets/${fx.open.dataset}$`
+			)
+		);
+		expect(listed.citation).toBe(one.citation);
 	});
 
 	it('404 for an unknown collection, a malformed id and a dataset that is not shared, with the same words', async () => {

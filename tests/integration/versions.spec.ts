@@ -268,6 +268,7 @@ describe('diff, publish and supersede', () => {
 
 		const old = await page('anonymous', v1.id);
 		expect(testid(old, 'superseded-by')).toContain('Superseded by');
+		expect(testid(old, 'dataset-status')).toBe('Superseded');
 		expect(old).toContain(`href="/datasets/${v2id}"`);
 		// Its own citation: version 1, its own year.
 		expect(testid(old, 'citation')).toMatch(/\(2025\)\. Versions diff .*, version 1 \[data set\]/);
@@ -288,6 +289,63 @@ describe('diff, publish and supersede', () => {
 		const again = await clients.curator.post(`/datasets/${v1.id}?/correct`, {});
 		expect(again.status).toBe(403);
 		expect(await successorOf(v2id)).toBeUndefined();
+	});
+});
+
+/** A day `days` from today (UTC), as YYYY-MM-DD. */
+const day = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+
+describe('embargoing a published dataset by correcting it', () => {
+	it('the new version is held back once published; the published one stays as open as it was', async () => {
+		const v1 = await publishedDataset('embargo');
+		await clients.contributor.post(`/datasets/${v1.id}?/correct`, {});
+		const v2id = (await successorOf(v1.id)).id;
+		const form = (embargoUntil: string) => ({
+			title: v1.title,
+			licence: 'CC-BY-4.0',
+			abstract: '',
+			keywords: '',
+			authors: '',
+			citation: '',
+			doi: '',
+			visibility: 'embargoed',
+			embargoUntil
+		});
+		// A release date in the past is refused on the correction too, and nothing changes.
+		const past = await clients.contributor.post(`/datasets/${v2id}?/update`, form(day(-2)));
+		expect(past.status).toBe(400);
+		expect(await past.text()).toContain('The release date of a new embargo cannot be in the past.');
+		expect(await datasetRow(v2id)).toMatchObject({ visibility: 'public', embargoUntil: null });
+		// Nobody outside the organisation may change the draft (the one 404 for hidden ones).
+		expect((await clients.outsider.post(`/datasets/${v2id}?/update`, form(day(5)))).status).toBe(
+			404
+		);
+
+		const release = day(5);
+		expect(
+			(await clients.contributor.post(`/datasets/${v2id}?/update`, form(release))).status
+		).toBe(200);
+		expect(testid(await page('curator', v2id), 'visibility-change')).toMatch(
+			new RegExp(`embargoed until ${release}\\. Version 1 stays public`)
+		);
+		expect((await clients.contributor.post(`/datasets/${v2id}?/submit`, {})).status).toBe(200);
+		expect((await clients.curator.post(`/datasets/${v2id}?/publish`, {})).status).toBe(200);
+		expect(await datasetRow(v2id)).toMatchObject({
+			status: 'published',
+			visibility: 'embargoed',
+			embargoUntil: release
+		});
+
+		// Anyone: version 2 is its summary only; version 1 keeps its values, off the map.
+		const v2res = await clients.anonymous.get(`/datasets/${v2id}`);
+		expect(v2res.status).toBe(303);
+		expect(v2res.headers.get('location')).toBe(`/datasets/${v2id}/about`);
+		expect((await clients.anonymous.get(`/datasets/${v2id}/download/sites.csv`)).status).toBe(404);
+		const old = await page('anonymous', v1.id);
+		expect(old).toContain(`A-${run}`);
+		expect(testid(old, 'dataset-status')).toBe('Superseded');
+		// Members see version 2 whole.
+		expect(await page('orgViewer', v2id)).toContain(`A-${run}`);
 	});
 });
 

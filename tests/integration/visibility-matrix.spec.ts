@@ -399,10 +399,11 @@ const ROUTES: Record<string, Row> = {
 	'/(app)/datasets': {
 		checks: [
 			{
-				name: 'dataset list',
+				name: 'dataset list (catalogue entries listed to everyone, without their sites)',
 				run: async (k, c) => {
 					const body = await textOnce(k, '/datasets/__data.json');
-					expect(body.includes(ids[c].dataset)).toBe(sees(k, c));
+					expect(body.includes(ids[c].dataset)).toBe(sees(k, c) || isEntry(c));
+					expect(body.includes(`MX-${caseNames.indexOf(c)}-${run}`)).toBe(false);
 				}
 			}
 		]
@@ -410,10 +411,11 @@ const ROUTES: Record<string, Row> = {
 	'/(app)/organisations/[slug]': {
 		checks: [
 			{
-				name: "organisation page's datasets",
+				name: "organisation page's datasets (and its catalogue entries)",
 				run: async (k, c) => {
 					const body = await textOnce(k, '/organisations/korvald-survey/__data.json');
-					expect(body.includes(ids[c].dataset)).toBe(sees(k, c));
+					expect(body.includes(ids[c].dataset)).toBe(sees(k, c) || isEntry(c));
+					expect(body.includes(`MX-${caseNames.indexOf(c)}-${run}`)).toBe(false);
 				}
 			}
 		]

@@ -10,6 +10,15 @@ export const STATUS_LABELS: Record<string, string> = {
 	retired: 'Retired'
 };
 
+/**
+ * A dataset's status as shown: a published version that a newer one has replaced reads
+ * "Superseded" (its stored status stays `published`, so it remains readable and citable).
+ */
+export function statusLabel(d: { status: string; supersededById?: string | null }): string {
+	if (d.status === 'published' && d.supersededById) return 'Superseded';
+	return STATUS_LABELS[d.status] ?? d.status;
+}
+
 export const VISIBILITY_LABELS: Record<string, string> = {
 	public: 'public',
 	embargoed: 'embargoed',

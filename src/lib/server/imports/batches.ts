@@ -1,6 +1,6 @@
 import { GetObjectCommand } from '@aws-sdk/client-s3';
 import { error } from '@sveltejs/kit';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type {
 	PreviewResponse,
 	RowEdits,
@@ -9,9 +9,10 @@ import type {
 } from '$lib/schemas/imports';
 import { notFound, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { importBatch } from '../db/schema';
+import { dataset, importBatch } from '../db/schema';
 import { requireUpload } from '../guards';
 import { readyAttachmentForViewer } from '../repositories/attachments';
+import { recordAudit } from '../repositories/audit';
 import { datasetForViewer } from '../repositories/datasets';
 import { bucket, s3 } from '../storage';
 import { draftFromBytes, previewBatchAs, selectBatch, type ChangeableBatch } from './draft';
@@ -117,17 +118,33 @@ export async function commitImport(
 			409,
 			`This file was imported into this dataset on ${previous.at.slice(0, 10)}. Confirm to import it again.`
 		);
-	const [queued] = await db
-		.update(importBatch)
-		.set({ status: 'queued', doneRows: 0 })
-		.where(
-			and(
-				eq(importBatch.id, batchId),
-				eq(importBatch.status, 'draft'),
-				eq(importBatch.revision, request.revision)
+	// Queued and recorded together: the audit log says who started which import when, also when
+	// the write itself fails later (that is `import`, written with the sites by the worker).
+	const queued = await db.transaction(async (tx) => {
+		const [row] = await tx
+			.update(importBatch)
+			.set({ status: 'queued', doneRows: 0 })
+			.where(
+				and(
+					eq(importBatch.id, batchId),
+					eq(importBatch.status, 'draft'),
+					eq(importBatch.revision, request.revision)
+				)
 			)
-		)
-		.returning({ id: importBatch.id, totalRows: importBatch.totalRows });
+			.returning({ id: importBatch.id, totalRows: importBatch.totalRows });
+		if (!row) return null;
+		await recordAudit(
+			tx,
+			{ userId: batch.createdBy },
+			{
+				action: 'import-start',
+				organisationId: sql`(SELECT ${dataset.organisationId} FROM ${dataset} WHERE ${dataset.id} = ${batch.datasetId})`,
+				datasetId: batch.datasetId,
+				details: { importId: batchId, fileName: batch.fileName, rows: row.totalRows }
+			}
+		);
+		return row;
+	});
 	if (!queued) error(409, 'The import was committed or changed meanwhile.');
 	try {
 		await enqueue(batchId);

@@ -13,6 +13,7 @@ import {
 	sql,
 	type SQL
 } from 'drizzle-orm';
+import { citationFields } from '$lib/datasets/citation';
 import { isUuid } from '$lib/uuid';
 import { visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
@@ -58,6 +59,7 @@ export interface OgcCollectionRow {
 	title: string;
 	description: string;
 	licence: string | null;
+	/** The built citation (citationFields, as on the dataset page and in downloads). */
 	citation: string | null;
 	extent: { bbox: [number, number, number, number] | null; years: [number, number] | null };
 }
@@ -249,6 +251,7 @@ async function allSitesCollection(db: Db, viewer: Viewer): Promise<OgcCollection
 async function datasetCollections(
 	db: Db,
 	viewer: Viewer,
+	origin: string,
 	datasetId?: string
 ): Promise<OgcCollectionRow[]> {
 	const rows = await db
@@ -256,11 +259,19 @@ async function datasetCollections(
 			id: dataset.id,
 			title: dataset.title,
 			abstract: dataset.abstract,
+			authors: dataset.authors,
+			version: dataset.version,
 			licence: dataset.licence,
+			doi: dataset.doi,
+			status: dataset.status,
 			citation: dataset.citation,
+			publishedAt: dataset.publishedAt,
+			createdAt: dataset.createdAt,
+			organisationName: organisation.name,
 			...extentColumns
 		})
 		.from(dataset)
+		.innerJoin(organisation, eq(organisation.id, dataset.organisationId))
 		.leftJoin(site, eq(site.datasetId, dataset.id))
 		.where(
 			and(
@@ -269,23 +280,29 @@ async function datasetCollections(
 				datasetId === undefined ? undefined : eq(dataset.id, datasetId)
 			)
 		)
-		.groupBy(dataset.id)
+		.groupBy(dataset.id, organisation.id)
 		.orderBy(asc(dataset.title), asc(dataset.id));
 	return rows.map((d) => ({
 		ref: { kind: 'dataset', datasetId: d.id } as const,
 		title: d.title,
 		description: d.abstract,
 		licence: d.licence,
-		citation: d.citation,
+		// The one citation of the dataset (author, year, title, version, licence, address), the
+		// same as on its page and in its downloads; the free-text note is only part of it there.
+		citation: citationFields(d, d.organisationName, origin).citation,
 		extent: extentOf(d)
 	}));
 }
 
 /** The collections this viewer may see: all visible sites, then each visible published dataset. */
-export async function collectionsFor(db: Db, viewer: Viewer): Promise<OgcCollectionRow[]> {
+export async function collectionsFor(
+	db: Db,
+	viewer: Viewer,
+	origin: string
+): Promise<OgcCollectionRow[]> {
 	const [all, datasets] = await Promise.all([
 		allSitesCollection(db, viewer),
-		datasetCollections(db, viewer)
+		datasetCollections(db, viewer, origin)
 	]);
 	return [all, ...datasets];
 }
@@ -294,10 +311,11 @@ export async function collectionsFor(db: Db, viewer: Viewer): Promise<OgcCollect
 export async function collectionFor(
 	db: Db,
 	viewer: Viewer,
-	ref: CollectionRef
+	ref: CollectionRef,
+	origin: string
 ): Promise<OgcCollectionRow | null> {
 	if (ref.kind === 'sites') return allSitesCollection(db, viewer);
-	const [d] = await datasetCollections(db, viewer, ref.datasetId);
+	const [d] = await datasetCollections(db, viewer, origin, ref.datasetId);
 	return d ?? null;
 }
 

@@ -31,6 +31,7 @@ export async function listVisibleDatasets(db: Db, viewer: Viewer) {
 			status: dataset.status,
 			visibility: dataset.visibility,
 			embargoUntil: dataset.embargoUntil,
+			supersededById: dataset.supersededById,
 			organisationName: organisation.name,
 			organisationSlug: organisation.slug,
 			sites: count(site.id)
@@ -51,7 +52,8 @@ export async function listOrganisationDatasets(db: Db, viewer: Viewer, organisat
 			title: dataset.title,
 			status: dataset.status,
 			visibility: dataset.visibility,
-			embargoUntil: dataset.embargoUntil
+			embargoUntil: dataset.embargoUntil,
+			supersededById: dataset.supersededById
 		})
 		.from(dataset)
 		.where(and(eq(dataset.organisationId, organisationId), visibleDatasets(viewer)))

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { and, asc, count, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNull, not, sql } from 'drizzle-orm';
 import {
 	SHARING_REFUSALS,
 	catalogueEntries,
@@ -36,6 +36,35 @@ export async function seesWholeDataset(db: Db, viewer: Viewer, id: string): Prom
 		.from(dataset)
 		.where(and(eq(dataset.id, id), visibleDatasets(viewer)));
 	return Boolean(row);
+}
+
+/**
+ * Catalogue entries the viewer may not open whole (restricted, or embargoed until a date), for the
+ * dataset list and an organisation's page: title, organisation and visibility only, so outsiders
+ * can find them and ask for access. Latest versions only (a superseded one is reached from it).
+ */
+export async function listCatalogueEntries(db: Db, viewer: Viewer, organisationId?: string) {
+	return db
+		.select({
+			id: dataset.id,
+			title: dataset.title,
+			licence: dataset.licence,
+			visibility: dataset.visibility,
+			embargoUntil: dataset.embargoUntil,
+			organisationName: organisation.name,
+			organisationSlug: organisation.slug
+		})
+		.from(dataset)
+		.innerJoin(organisation, eq(dataset.organisationId, organisation.id))
+		.where(
+			and(
+				catalogueEntries(),
+				isNull(dataset.supersededById),
+				not(visibleDatasets(viewer)),
+				organisationId === undefined ? undefined : eq(dataset.organisationId, organisationId)
+			)
+		)
+		.orderBy(asc(dataset.title));
 }
 
 /**

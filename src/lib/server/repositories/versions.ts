@@ -172,7 +172,12 @@ export async function versionLinks(db: Db, viewer: Viewer, found: VisibleDataset
 		if (!id) return null;
 		try {
 			const v = await datasetForViewer(db, viewer, id);
-			return { id, version: v.dataset.version, status: v.dataset.status };
+			return {
+				id,
+				version: v.dataset.version,
+				status: v.dataset.status,
+				visibility: v.dataset.visibility
+			};
 		} catch {
 			// Not visible to this viewer (an unpublished draft, say): no link.
 			return null;

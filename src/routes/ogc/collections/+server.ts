@@ -6,6 +6,6 @@ import { collectionsFor } from '$lib/server/ogc/repository';
 
 /** The collections the caller may see: all visible sites, and each visible published dataset. */
 export const GET = ogcGet(async ({ url, locals }) =>
-	collections(ogcBase(url), await collectionsFor(getDb(), locals.viewer))
+	collections(ogcBase(url), await collectionsFor(getDb(), locals.viewer, url.origin))
 );
 export const OPTIONS = preflight;

@@ -1,7 +1,10 @@
 import { getDb } from '$lib/server/db';
 import { organisationAndMembership } from '$lib/server/guards';
 import { listOrganisationDatasets } from '$lib/server/repositories/datasets';
-import { pendingRequestsOfOrganisation } from '$lib/server/repositories/sharing';
+import {
+	listCatalogueEntries,
+	pendingRequestsOfOrganisation
+} from '$lib/server/repositories/sharing';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -16,6 +19,8 @@ export const load: PageServerLoad = async (event) => {
 		},
 		role: membership?.role ?? null,
 		datasets: await listOrganisationDatasets(getDb(), event.locals.viewer, org.id),
+		// Its restricted and embargoed datasets the viewer may not open: title and "ask for access".
+		catalogue: await listCatalogueEntries(getDb(), event.locals.viewer, org.id),
 		// Datasets with access requests waiting (empty unless the viewer answers them).
 		accessRequests: await pendingRequestsOfOrganisation(getDb(), event.locals.viewer, org.id)
 	};

@@ -8,7 +8,7 @@ import { collectionFor } from '$lib/server/ogc/repository';
 /** One collection; unknown, malformed and hidden ids get the same 404. */
 export const GET = ogcGet(async ({ url, params, locals }) => {
 	const ref = parseCollectionId(params.collectionId ?? '');
-	const row = ref && (await collectionFor(getDb(), locals.viewer, ref));
+	const row = ref && (await collectionFor(getDb(), locals.viewer, ref, url.origin));
 	return row ? collection(ogcBase(url), row) : NOT_FOUND;
 });
 export const OPTIONS = preflight;
