@@ -33,7 +33,7 @@ const samples = Array.from({ length: N }, () => {
 	const lat = BBOX[1] + rnd() * (BBOX[3] - BBOX[1]);
 	const [x, y] = forward(lon, lat);
 	const value = 65 + 15 * Math.sin(lon * 3) * Math.cos(lat * 5) + 4 * (rnd() - 0.5);
-	return { x, y, value, sigma: null };
+	return { x, y, value };
 });
 let xMin = Infinity,
 	yMin = Infinity,

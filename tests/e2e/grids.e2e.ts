@@ -116,7 +116,10 @@ describe('heat-flow grid on the map', () => {
 		await expect
 			.poll(async () => Number(await map.getAttribute('data-grid-contours')), { timeout: 15_000 })
 			.toBeGreaterThan(0);
-		expect(await page.locator('.leaflet-grid-contours-pane path').count()).toBeGreaterThan(0);
+		// Drawn in their own pane (SVG paths, or a canvas when the map prefers canvas).
+		expect(
+			await page.locator('.leaflet-grid-contours-pane').locator('path, canvas').count()
+		).toBeGreaterThan(0);
 
 		// The panel shows what the statistics route answers for the same grid and rectangle.
 		const stats = page.getByTestId('grid-region-stats');
