@@ -40,6 +40,7 @@ const UNDOCUMENTED = new Set([
 	'/grids',
 	'/grids/{id}',
 	'/grids/{id}/{file}',
+	'/grids/{id}/statistics',
 	'/openapi.json'
 ]);
 

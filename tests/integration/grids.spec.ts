@@ -196,6 +196,41 @@ describe('a kriging grid requested by an anonymous visitor', () => {
 		).toBe(400);
 	});
 
+	it('gives region statistics: over the whole grid, the mean and median of its cells; P10 ≤ P50 ≤ P90', async () => {
+		const csv = (await (await anonymous.get(`/api/v1/grids/${id}/grid.csv`)).text()).split('\n');
+		const cells = csv
+			.filter((l) => l && !l.startsWith('#'))
+			.slice(1)
+			.map((l) => l.split(',')[4])
+			.filter((v) => v !== '')
+			.map(Number)
+			.sort((a, b) => a - b);
+		// The grid's lon/lat bounds enclose every cell, so each counts with its full (equal) area.
+		const res = await anonymous.json(`/api/v1/grids/${id}/statistics`, {
+			bbox: status.boundsWgs84
+		});
+		expect(res.status).toBe(200);
+		const stats = await res.json();
+		const mean = cells.reduce((a, b) => a + b, 0) / cells.length;
+		expect(stats.heatFlowMWm2.mean).toBeCloseTo(mean, 2);
+		expect(stats.heatFlowMWm2.p50).toBeCloseTo(cells[Math.ceil(cells.length / 2) - 1], 2);
+		const g = status.grid;
+		const area = cells.length * g.dx * g.dy;
+		expect(Math.abs(stats.heatFlowMWm2.coveredAreaM2 - area) / area).toBeLessThan(1e-6);
+		const d = stats.isothermDepthM;
+		expect(d.temperatureC).toBe(150);
+		expect(d.p10).toBeLessThanOrEqual(d.p50);
+		expect(d.p50).toBeLessThanOrEqual(d.p90);
+		// GET with a bbox answers the same.
+		const viaGet = await (
+			await anonymous.get(`/api/v1/grids/${id}/statistics?bbox=${status.boundsWgs84.join(',')}`)
+		).json();
+		expect(viaGet.heatFlowMWm2).toEqual(stats.heatFlowMWm2);
+		const bad = await anonymous.json(`/api/v1/grids/${id}/statistics`, { bbox: [9, 60, 8, 59] });
+		expect(bad.status).toBe(400);
+		expect((await bad.json()).message).toMatch(/^Bad region: .*west < east/);
+	});
+
 	it('cites the datasets that shaped it (public survey only) in the CSV and the contours', async () => {
 		const csv = await (await anonymous.get(`/api/v1/grids/${id}/grid.csv`)).text();
 		expect(csv).toMatch(/# - .*Korvald.*\(licence: CC-BY-4\.0\)/);
@@ -224,6 +259,18 @@ describe('a kriging grid requested by an anonymous visitor', () => {
 		// The member's grid is not shown to whoever may not see the wells.
 		expect((await anonymous.get(`/api/v1/grids/${mine.body.id}`)).status).toBe(404);
 		expect((await anonymous.get(`/api/v1/grids/${mine.body.id}/heat-flow.tif`)).status).toBe(404);
+		// Nor are its statistics (the same access check as the grid).
+		const region = { bbox: BBOX };
+		expect((await member.json(`/api/v1/grids/${mine.body.id}/statistics`, region)).status).toBe(
+			200
+		);
+		expect((await anonymous.json(`/api/v1/grids/${mine.body.id}/statistics`, region)).status).toBe(
+			404
+		);
+		expect(
+			(await anonymous.get(`/api/v1/grids/${mine.body.id}/statistics?bbox=${BBOX.join(',')}`))
+				.status
+		).toBe(404);
 
 		const before = await download(anonymous, `/api/v1/grids/${id}/heat-flow.tif`);
 		await db

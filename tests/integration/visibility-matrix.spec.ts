@@ -856,6 +856,28 @@ const ROUTES: Record<string, Row> = {
 			}
 		]
 	},
+	'/api/v1/grids/[id=uuid]/statistics': {
+		checks: [
+			{
+				name: "region statistics of the owner's grid (POST and GET; hidden like the grid)",
+				run: async (k, c) => {
+					const id = await ownerGrid(c);
+					if (!CASES[c].map) return expect(id).toBeNull();
+					const bbox = gridBox(c);
+					const posted = await clients[k].json(`/api/v1/grids/${id}/statistics`, { bbox });
+					const got = await get(k, `/api/v1/grids/${id}/statistics?bbox=${bbox.join(',')}`);
+					for (const res of [posted, got]) {
+						if (!sees(k, c)) {
+							await expectHidden(res);
+							continue;
+						}
+						expect(res.status).toBe(200);
+						expect((await res.json()).heatFlowMWm2.mean).toBeGreaterThan(0);
+					}
+				}
+			}
+		]
+	},
 	'/api/v1/openapi.json': { none: 'the OpenAPI document: static' },
 	'/api/v1/organisations': { none: 'public directory of organisations, no datasets' },
 	'/api/v1/compute/geotherm': { none: 'computes on the posted model; reads no stored data' },

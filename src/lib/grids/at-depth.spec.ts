@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { defaultCrustForSite } from '../chart-data';
 import { isothermDepthM, solveGeotherm, temperatureAtDepthC } from '../thermal';
+import { firstCrossingM } from '../thermal/derived';
 import { isothermDepthGrid, temperatureAtDepthGrid } from './at-depth';
 
 // The affine shortcut must equal solving the geotherm for each cell (thermal core, closed forms;
@@ -32,5 +33,24 @@ describe('at-depth grids', () => {
 			expect(d.p90[c]).toBeGreaterThan(d.p50[c]);
 		}
 		expect(d.p50[2]).toBeLessThan(d.p50[0]);
+	});
+	it('the search for the isotherm gives what walking down each affine profile gives', () => {
+		const a = direct(60);
+		const b = direct(100);
+		const walk = (q: number, tc: number) => {
+			const t = a.temperatureC.map((ta, k) => ta + ((q - 60) * (b.temperatureC[k] - ta)) / 40);
+			return firstCrossingM(a.depthM, t, tc) ?? NaN;
+		};
+		const qs = Float32Array.from({ length: 60 }, (_, k) => 15 + k * 2.7);
+		for (const tc of [20, 100, 150, 400, 700, 1000]) {
+			const d = isothermDepthGrid(qs, null, tc).p50;
+			qs.forEach((q, k) => {
+				const w = walk(q, tc);
+				if (Number.isNaN(w)) expect(d[k]).toBeNaN();
+				else expect(d[k]).toBeCloseTo(w, 0);
+			});
+		}
+		// Some isotherms are deeper than the crust for the coolest cells: not reached.
+		expect(Array.from(isothermDepthGrid(qs, null, 1000).p50).some(Number.isNaN)).toBe(true);
 	});
 });

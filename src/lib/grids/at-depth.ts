@@ -60,6 +60,61 @@ export function temperatureAtDepthGrid(
 	return out;
 }
 
+/**
+ * The depth (m) of an isotherm as a function of the surface heat flow, for the affine family
+ * T(z_k; q) = Ta_k + (q − qa) · g_k. Own code (science): with g_k > 0 the profile is at or
+ * above the isotherm at depth k exactly when q ≥ qk_k = qa + (Tc − Ta_k) / g_k, so the first
+ * depth reached is the first k whose running minimum of qk_k is ≤ q: a binary search instead of
+ * a walk down the profile (a million cells in well under a second). The answer is the same
+ * linear interpolation as `firstCrossingM`; profiles it cannot handle so (a surface at or above
+ * the isotherm, or a negative g) take that walk.
+ */
+function isothermDepthFunction(a: GeothermProfile, b: GeothermProfile, isothermC: number) {
+	const n = a.depthM.length;
+	const z = a.depthM;
+	const ta = Float64Array.from(a.temperatureC);
+	const g = Float64Array.from(ta, (t, k) => (b.temperatureC[k] - t) / (Q_B - Q_A));
+	const t = new Float64Array(n);
+	const walk = (q: number) => {
+		for (let k = 0; k < n; k++) t[k] = ta[k] + (q - Q_A) * g[k];
+		return firstCrossingM(z, t, isothermC) ?? NaN;
+	};
+	if (ta[0] >= isothermC || g.some((v) => v < 0))
+		return (q: number) => (Number.isFinite(q) ? walk(q) : NaN);
+	const runMin = new Float64Array(n);
+	let m = Infinity;
+	for (let k = 0; k < n; k++) {
+		const qk =
+			g[k] > 0 ? Q_A + (isothermC - ta[k]) / g[k] : ta[k] >= isothermC ? -Infinity : Infinity;
+		m = Math.min(m, qk);
+		runMin[k] = m;
+	}
+	const at = (k: number, q: number) => ta[k] + (q - Q_A) * g[k] - isothermC;
+	return (q: number) => {
+		if (!Number.isFinite(q) || runMin[n - 1] > q) {
+			// Not reached by the search; rounding at the last step is settled by the walk.
+			return Number.isFinite(q) && at(n - 1, q) >= 0 ? walk(q) : NaN;
+		}
+		let lo = 0;
+		let hi = n - 1;
+		while (lo < hi) {
+			const mid = (lo + hi) >> 1;
+			if (runMin[mid] <= q) hi = mid;
+			else lo = mid + 1;
+		}
+		// qk and the temperature may disagree by a rounding at the boundary: settle on the first k
+		// whose temperature is at or above the isotherm, as the walk would.
+		let k = lo;
+		while (k > 0 && at(k - 1, q) >= 0) k--;
+		while (k < n - 1 && at(k, q) < 0) k++;
+		const cur = at(k, q);
+		if (cur < 0) return NaN;
+		if (k === 0 || cur === 0) return z[k];
+		const prev = at(k - 1, q);
+		return z[k - 1] + ((z[k] - z[k - 1]) * prev) / (prev - cur);
+	};
+}
+
 /** Per cell: depth (m) of the isotherm, NaN where not reached within the crust or no heat flow. */
 export function isothermDepthGrid(
 	value: Float32Array,
@@ -67,14 +122,7 @@ export function isothermDepthGrid(
 	isothermC = DEFAULT_ISOTHERM_C
 ): Percentiles {
 	const [a, b] = references();
-	const n = a.depthM.length;
-	const dTdq = Float64Array.from(a.temperatureC, (t, k) => (b.temperatureC[k] - t) / (Q_B - Q_A));
-	const t = new Float64Array(n);
-	const depthAt = (q: number) => {
-		if (!Number.isFinite(q)) return NaN;
-		for (let k = 0; k < n; k++) t[k] = a.temperatureC[k] + (q - Q_A) * dTdq[k];
-		return firstCrossingM(a.depthM, t, isothermC) ?? NaN;
-	};
+	const depthAt = isothermDepthFunction(a, b, isothermC);
 	const out = {
 		p10: new Float32Array(value.length),
 		p50: new Float32Array(value.length),

@@ -149,30 +149,44 @@ function chooseVariogram(
 function idwCrossValidation(samples: Sample[], power: number, k?: number): CrossValidation {
 	const pairs: [number, number][] = [];
 	const n = samples.length;
-	const d = new Float64Array(n);
+	const xs = Float64Array.from(samples, (s) => s.x);
+	const ys = Float64Array.from(samples, (s) => s.y);
+	const zs = Float64Array.from(samples, (s) => s.value);
+	// Weights from squared distances, 1/dᵖ = (d²)^(−p/2), as inverseDistanceGrid does: with every
+	// site this is n² pairs, and Math.hypot, powers and arrays per site made it most of the job.
+	const half = power / 2;
+	const d2 = new Float64Array(n);
 	const order = new Int32Array(n);
 	for (let i = 0; i < n; i++) {
-		for (let q = 0; q < n; q++)
-			d[q] = Math.hypot(samples[q].x - samples[i].x, samples[q].y - samples[i].y);
-		let ids: ArrayLike<number>;
-		if (k !== undefined && k < n - 1) {
-			for (let q = 0; q < n; q++) order[q] = q;
-			const sorted = Array.from(order).sort((a, b) => d[a] - d[b]);
-			ids = sorted.filter((q) => q !== i).slice(0, k);
-		} else ids = Array.from({ length: n }, (_, q) => q).filter((q) => q !== i);
+		const xi = xs[i];
+		const yi = ys[i];
+		for (let q = 0; q < n; q++) {
+			const ex = xs[q] - xi;
+			const ey = ys[q] - yi;
+			d2[q] = ex * ex + ey * ey;
+		}
 		let sw = 0;
 		let swz = 0;
 		let exact: number | null = null;
-		for (const q of Array.from(ids)) {
-			if (d[q] === 0) {
-				exact = samples[q].value;
-				break;
+		const use = (q: number) => {
+			if (d2[q] === 0) {
+				exact = zs[q];
+				return false;
 			}
-			const w = 1 / d[q] ** power;
+			const w = power === 2 ? 1 / d2[q] : Math.pow(d2[q], -half);
 			sw += w;
-			swz += w * samples[q].value;
+			swz += w * zs[q];
+			return true;
+		};
+		if (k !== undefined && k < n - 1) {
+			for (let q = 0; q < n; q++) order[q] = q;
+			const sorted = Array.from(order).sort((a, b) => d2[a] - d2[b]);
+			const ids = sorted.filter((q) => q !== i).slice(0, k);
+			for (const q of ids) if (!use(q)) break;
+		} else {
+			for (let q = 0; q < n; q++) if (q !== i && !use(q)) break;
 		}
-		pairs.push([samples[i].value, exact ?? swz / sw]);
+		pairs.push([zs[i], exact ?? swz / sw]);
 	}
 	return summarise(pairs, null);
 }

@@ -103,6 +103,47 @@ describe('computeGrid', () => {
 		expect(Number.isNaN(out.value[19 * 20 + 19])).toBe(true); // (19 km, 19 km) is > 3 km from every site
 		expect(out.maskedCells).toBeGreaterThan(0);
 	});
+	it('IDW cross-validation: each site from all the others, or from its nearest k (hand-computed)', async () => {
+		// Three sites on a line at 0, 1 and 3 km with 10, 20, 40 mW/m², power 2 (Shepard 1968).
+		const line = [
+			{ x: 0, y: 0, value: 10 },
+			{ x: 1000, y: 0, value: 20 },
+			{ x: 3000, y: 0, value: 40 }
+		];
+		const g = { x0: 0, y0: 0, dx: 1000, dy: 1000, nx: 1, ny: 1 };
+		const all = await computeGrid(line, g, gridRequestSchema.parse({ ...base, method: 'idw' }));
+		const idw = (pts: [number, number][]) =>
+			pts.reduce((s, [d, v]) => s + v / d ** 2, 0) / pts.reduce((s, [d]) => s + 1 / d ** 2, 0);
+		expect(all.crossValidation.pairs.map(([, p]) => p)).toEqual([
+			expect.closeTo(
+				idw([
+					[1000, 20],
+					[3000, 40]
+				]),
+				10
+			),
+			expect.closeTo(
+				idw([
+					[1000, 10],
+					[2000, 40]
+				]),
+				10
+			),
+			expect.closeTo(
+				idw([
+					[3000, 10],
+					[2000, 20]
+				]),
+				10
+			)
+		]);
+		const one = await computeGrid(
+			line,
+			g,
+			gridRequestSchema.parse({ ...base, method: 'idw', maxNeighbours: 1 })
+		);
+		expect(one.crossValidation.pairs.map(([, p]) => p)).toEqual([20, 10, 20]);
+	});
 	it('uses a user variogram as given', async () => {
 		const req = gridRequestSchema.parse({
 			...base,

@@ -9,6 +9,11 @@ import {
 	temperatureAtDepthGrid
 } from '$lib/grids/at-depth';
 import { gridRequestSchema, requestProblem, type GridRequest } from '$lib/grids/request';
+import {
+	gridRegionStatistics,
+	regionStatisticsRequestSchema,
+	type RegionStatistics
+} from '$lib/grids/region-stats';
 import { notFound, type Viewer } from '../access';
 import { USER_RATE_RULES } from '../auth/rate-rules';
 import { countAttempt } from '../rate-limit';
@@ -238,4 +243,34 @@ export async function gridFile(
 				fileName
 			};
 	}
+}
+
+/** Read and check a region-statistics request; 400 with one sentence otherwise. */
+export function parseRegionRequest(body: unknown) {
+	const parsed = regionStatisticsRequestSchema.safeParse(body);
+	if (!parsed.success) error(400, `Bad region: ${requestProblem(parsed.error)}.`);
+	return parsed.data;
+}
+
+/**
+ * Area-weighted statistics of a finished grid inside a drawn region, through the same access
+ * check as the grid itself (gridForViewer); an unfinished grid is the shared 404, like its files.
+ */
+export async function gridRegionStatisticsFor(
+	db: Db,
+	viewer: Viewer,
+	id: string,
+	body: unknown
+): Promise<RegionStatistics & { gridId: string; crs: { epsg: number }; caution: string }> {
+	const region = parseRegionRequest(body);
+	const row = await gridForViewer(db, viewer, id);
+	if (row.status !== 'done') notFound();
+	const plan = planOf(row);
+	const stats = gridRegionStatistics(
+		plan,
+		cellsOf(row.valueCells)!,
+		cellsOf(row.sigmaCells),
+		region
+	);
+	return { gridId: row.id, crs: { epsg: plan.crs.epsg }, ...stats, caution: GRID_CAUTION };
 }

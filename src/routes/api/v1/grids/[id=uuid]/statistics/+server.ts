@@ -1,0 +1,35 @@
+import { json } from '@sveltejs/kit';
+import { getDb } from '$lib/server/db';
+import { gridRegionStatisticsFor } from '$lib/server/grids/service';
+import type { RequestHandler } from './$types';
+
+/**
+ * Area-weighted mean and P10/P50/P90 of a finished grid's heat flow and isotherm depth inside a
+ * region: POST JSON `{ "bbox": [w, s, e, n] }` or `{ "polygon": [[lon, lat], …] }` (optional
+ * `temperatureC`), or GET `?bbox=w,s,e,n&temperatureC=`. Same access as the grid.
+ */
+const answer = async (event: Parameters<RequestHandler>[0], body: unknown) =>
+	json(await gridRegionStatisticsFor(getDb(), event.locals.viewer, event.params.id, body), {
+		headers: { 'cache-control': 'private, no-store' }
+	});
+
+export const POST: RequestHandler = async (event) => {
+	let body: unknown;
+	try {
+		body = await event.request.json();
+	} catch {
+		return json({ message: 'Bad region: the body must be JSON.' }, { status: 400 });
+	}
+	return answer(event, body);
+};
+
+export const GET: RequestHandler = async (event) => {
+	const q = event.url.searchParams;
+	const bbox = q.get('bbox');
+	const t = q.get('temperatureC');
+	const body: Record<string, unknown> = {};
+	// Numbers that do not parse stay NaN, which the schema refuses with a sentence.
+	if (bbox !== null) body.bbox = bbox.split(',').map((v) => (v.trim() === '' ? NaN : Number(v)));
+	if (t !== null && t !== '') body.temperatureC = Number(t);
+	return answer(event, body);
+};
