@@ -128,7 +128,10 @@ describe('audit rows', () => {
 		);
 		for (const r of byDataset) expect(r.organisationId).toBe(ORG);
 		expect(
-			byDataset.filter((r) => r.action === 'upload').map((r) => r.details.fileName).sort()
+			byDataset
+				.filter((r) => r.action === 'upload')
+				.map((r) => r.details.fileName)
+				.sort()
 		).toEqual([`audit-${run}.csv`, 'notes.csv'].sort());
 		expect(byDataset.find((r) => r.action === 'import')!.details).toMatchObject({ rows: 3 });
 		expect(byDataset.find((r) => r.action === 'import-start')!.details).toMatchObject({
