@@ -1,3 +1,5 @@
+import fs from 'node:fs';
+import Papa from 'papaparse';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl, launch, screenshot, watchForErrors } from './browser';
@@ -103,6 +105,19 @@ describe('the map at scale, in a browser', () => {
 			.poll(() => page.getByTestId('region-median').textContent())
 			.toBe(`${region.medianMWm2.toFixed(1)} mW/m²`);
 		await screenshot(page, 'map-scale-region-1280');
+
+		// Download the region as CSV: every site counted, each dataset's citation block above them.
+		const [download] = await Promise.all([
+			page.waitForEvent('download'),
+			page.getByTestId('region-download-csv').click()
+		]);
+		const csv = fs.readFileSync((await download.path())!, 'utf8');
+		const lines = csv.trimEnd().split('\n');
+		const comments = lines.filter((l) => l.startsWith('#'));
+		expect(comments.some((l) => l.startsWith('# Cite as: '))).toBe(true);
+		expect(comments.some((l) => l.startsWith('# Licence (SPDX): '))).toBe(true);
+		const rows = Papa.parse(csv, { comments: '#', header: true, skipEmptyLines: true }).data;
+		expect(rows.length).toBe(region.count);
 		expect(errors).toEqual([]);
 		await page.close();
 	});

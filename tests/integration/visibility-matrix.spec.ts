@@ -727,6 +727,64 @@ const ROUTES: Record<string, Row> = {
 					const body = JSON.parse(await text(k, `/api/v1/map/region?bbox=${bbox}&q=${code}`));
 					expect(body.count).toBe(sees(k, c) && CASES[c].map ? 1 : 0);
 				}
+			},
+			{
+				name: 'region statistics of a polygon (POST body and GET link)',
+				run: async (k, c) => {
+					const { west: w, south: s, east: e, north: n } = BOX;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const shown = sees(k, c) && CASES[c].map ? 1 : 0;
+					const ring = [
+						[w, s],
+						[e, s],
+						[e, n],
+						[w, n],
+						[w, s]
+					];
+					const posted = await clients[k].json(`/api/v1/map/region?q=${code}`, {
+						type: 'Polygon',
+						coordinates: [ring]
+					});
+					expect(posted.status).toBe(200);
+					expect((await posted.json()).count).toBe(shown);
+					const param = encodeURIComponent(ring.map((p) => p.join(' ')).join(','));
+					const got = JSON.parse(await text(k, `/api/v1/map/region?polygon=${param}&q=${code}`));
+					expect(got.count).toBe(shown);
+				}
+			}
+		]
+	},
+	'/api/v1/map/region/sites.csv': {
+		checks: [
+			{
+				name: 'region download (CSV) with citations',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const body = await text(k, `/api/v1/map/region/sites.csv?bbox=${bbox}&q=${code}`);
+					const shown = sees(k, c) && CASES[c].map;
+					expect(body.includes(code)).toBe(shown);
+					expect(body.includes(ids[c].dataset)).toBe(shown);
+				}
+			}
+		]
+	},
+	'/api/v1/map/region/sites.geojson': {
+		checks: [
+			{
+				name: 'region download (GeoJSON) with citations',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const body = JSON.parse(
+						await text(k, `/api/v1/map/region/sites.geojson?bbox=${bbox}&q=${code}`)
+					);
+					const shown = sees(k, c) && CASES[c].map;
+					expect(body.features.length).toBe(shown ? 1 : 0);
+					expect(body.metadata.datasets.map((d: { id: string }) => d.id)).toEqual(
+						shown ? [ids[c].dataset] : []
+					);
+				}
 			}
 		]
 	},

@@ -1,3 +1,4 @@
+import { error } from '@sveltejs/kit';
 import { and, asc, count, eq, or, sql, type SQL } from 'drizzle-orm';
 import {
 	CELL_PX,
@@ -10,6 +11,7 @@ import {
 	type MapData
 } from '$lib/map/grid';
 import { HISTOGRAM_BIN_MWM2, HISTOGRAM_MAX_MWM2, type RegionStatistics } from '$lib/map/region';
+import { ringBounds, type Position, type Region } from '$lib/map/region-shape';
 import type { SiteSearchHit } from '$lib/map/search';
 import type { SiteFilters } from '$lib/sites/filters';
 import { visibleOnMaps, type Viewer } from '../access';
@@ -32,6 +34,35 @@ function where(viewer: Viewer, filters: SiteFilters, box?: BoundingBox): SQL {
 		visibleOnMaps(viewer),
 		...siteFilterConditions(filters)
 	)!;
+}
+
+const polygonGeometry = (ring: readonly Position[]) =>
+	sql`ST_SetSRID(ST_GeomFromGeoJSON(${JSON.stringify({ type: 'Polygon', coordinates: [ring] })}), 4326)`;
+
+/**
+ * Sites inside a region: the box test first (GiST index), then, for a polygon, the exact test
+ * (points on the outline count as inside).
+ */
+export function regionCondition(region: Region): SQL {
+	if (region.kind === 'bbox') return sql`${site.location} && ${envelope(region.box)}`;
+	return and(
+		sql`${site.location} && ${envelope(ringBounds(region.ring))}`,
+		sql`ST_Intersects(${site.location}, ${polygonGeometry(region.ring)})`
+	)!;
+}
+
+/** A polygon that crosses itself is refused with PostGIS's reason (a 400), not half-answered. */
+export async function assertValidRegion(db: Db, region: Region): Promise<void> {
+	if (region.kind !== 'polygon') return;
+	const [row] = await db.execute<{ reason: string }>(
+		sql`SELECT ST_IsValidReason(${polygonGeometry(region.ring)}) AS reason`
+	);
+	if (row.reason !== 'Valid Geometry') error(400, `the polygon is not valid: ${row.reason}`);
+}
+
+/** The visible sites matching the filters inside a region (statistics and downloads). */
+export function regionWhere(viewer: Viewer, filters: SiteFilters, region: Region): SQL {
+	return and(regionCondition(region), visibleOnMaps(viewer), ...siteFilterConditions(filters))!;
 }
 
 /**
@@ -145,18 +176,19 @@ export async function searchVisibleSites(
 }
 
 /**
- * Statistics of the visible, matching sites inside a box. Percentiles are PostgreSQL's
+ * Statistics of the visible, matching sites inside a region (rectangle or polygon). Percentiles are PostgreSQL's
  * percentile_cont (linear interpolation between order statistics, definition 7 of Hyndman & Fan
  * 1996, from memory); the standard deviation is the sample one (stddev_samp).
  */
 export async function regionStatistics(
 	db: Db,
 	viewer: Viewer,
-	box: BoundingBox,
+	region: Region,
 	filters: SiteFilters
 ): Promise<RegionStatistics> {
+	await assertValidRegion(db, region);
 	const hf = site.heatFlowMWm2;
-	const condition = where(viewer, filters, box);
+	const condition = regionWhere(viewer, filters, region);
 	const bin = sql<number>`least(floor(${hf} / ${sql.raw(String(HISTOGRAM_BIN_MWM2))}), ${sql.raw(String(HISTOGRAM_MAX_MWM2 / HISTOGRAM_BIN_MWM2))})::int`;
 	const [[stats], bins, quality] = await Promise.all([
 		db
