@@ -94,7 +94,6 @@ export async function mapCells(
 			iy,
 			count: sql<number>`count(*)::int`,
 			meanMWm2: sql<number | null>`avg(${hf})::float8`,
-			medianMWm2: sql<number | null>`percentile_cont(0.5) WITHIN GROUP (ORDER BY ${hf})`,
 			minMWm2: sql<number | null>`min(${hf})`,
 			maxMWm2: sql<number | null>`max(${hf})`
 		})
