@@ -356,3 +356,53 @@ describe('the import-flag filter', () => {
 		}
 	});
 });
+
+describe('pre-built map cells', () => {
+	const view = async (c: Client, zoom: number) => {
+		const res = await c.get(
+			`/api/v1/map?bbox=${BOX}&zoom=${zoom}&dataset=${Object.values(datasets).join(',')}`
+		);
+		expect(res.status).toBe(200);
+		return res.json();
+	};
+	const answers = async () => ({
+		anonymous: [await view(anonymous, 3), await view(anonymous, 5)],
+		outsider: [await view(outsider, 3), await view(outsider, 5)],
+		member: [await view(member, 3), await view(member, 5)]
+	});
+
+	it('answer as the sites do, before and after the rebuild, hidden datasets never counted', async () => {
+		const before = await answers();
+		expect(before.anonymous[0].count).toBe(5);
+		expect(before.anonymous[0].cells[0].maxMWm2).toBe(90);
+		expect(before.member[0].count).toBe(7);
+		expect(before.member[0].cells[0].maxMWm2).toBe(500);
+		for (const id of Object.values(datasets)) await sql`SELECT map_cell_refresh(${id}::uuid)`;
+		const built = await sql`SELECT count(*)::int AS n FROM map_cell
+			WHERE dataset_id = ${datasets.priv}::uuid AND zoom = 3`;
+		expect(built[0].n).toBe(1);
+		const stale = await sql`SELECT count(*)::int AS n FROM map_cell_stale
+			WHERE dataset_id IN ${sql(Object.values(datasets))}`;
+		expect(stale[0].n).toBe(0);
+		expect(await answers()).toEqual(before);
+		expect(before.outsider).toEqual(before.anonymous);
+	});
+
+	it('a change to the sites counts at once (the dataset is answered from its sites)', async () => {
+		await db.insert(site).values({
+			datasetId: datasets.pub,
+			code: `MR${run}-NEW`,
+			name: 'New well',
+			location: { lon: x(2), lat: -36.5 },
+			heatFlowMWm2: 1000
+		});
+		try {
+			const after = await view(anonymous, 3);
+			expect(after.count).toBe(6);
+			expect(after.cells[0].maxMWm2).toBe(1000);
+		} finally {
+			await db.delete(site).where(eq(site.code, `MR${run}-NEW`));
+		}
+		expect((await view(anonymous, 3)).count).toBe(5);
+	});
+});

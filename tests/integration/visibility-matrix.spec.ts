@@ -684,6 +684,12 @@ const ROUTES: Record<string, Row> = {
 					expect(cells.kind).toBe('cells');
 					expect(cells.count).toBe(shown ? 1 : 0);
 					expect(cells.cells.length).toBe(shown ? 1 : 0);
+					// Without site filters the cells come pre-built per dataset (or from the sites while
+					// the dataset is marked stale): the same rule.
+					const byDataset = JSON.parse(
+						await text(k, `/api/v1/map?bbox=${bbox}&zoom=3&dataset=${ids[c].dataset}`)
+					);
+					expect(byDataset.count > 0).toBe(shown);
 					const body = JSON.parse(await textOnce(k, `/api/v1/map?bbox=${bbox}&zoom=12&q=${run}`));
 					const found = body.sites.map((s: { id: string }) => s.id);
 					expect(found.includes(ids[c].site)).toBe(shown);

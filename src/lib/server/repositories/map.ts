@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { and, asc, count, eq, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
 import {
 	CELL_PX,
 	cellSizeM,
@@ -17,6 +17,15 @@ import type { SiteFilters } from '$lib/sites/filters';
 import { visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { dataset, organisation, site } from '../db/schema';
+import {
+	cellRange,
+	combineParts,
+	prebuiltCanAnswer,
+	prebuiltParts,
+	refreshStaleCellsSoon,
+	staleDatasetIds,
+	type CellParts
+} from './map-cells';
 import { siteFilterConditions, visibleSitesInBox, type BoundingBox } from './sites';
 
 /**
@@ -78,7 +87,36 @@ function cellIndex(zoom: number) {
 	return { ix, iy };
 }
 
-/** Grid cells of the visible, matching sites in a box at a zoom. */
+/** Cell sums of the visible, matching sites in a box at a zoom, straight from the sites. */
+async function liveParts(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters,
+	datasetIds?: string[]
+): Promise<CellParts[]> {
+	const { ix, iy } = cellIndex(zoom);
+	const hf = site.heatFlowMWm2;
+	return db
+		.select({
+			ix,
+			iy,
+			count: sql<number>`count(*)::int`,
+			withValue: sql<number>`count(${hf})::int`,
+			sumMWm2: sql<number | null>`sum(${hf})`,
+			minMWm2: sql<number | null>`min(${hf})`,
+			maxMWm2: sql<number | null>`max(${hf})`
+		})
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(
+			and(where(viewer, filters, box), datasetIds ? inArray(site.datasetId, datasetIds) : undefined)
+		)
+		.groupBy(ix, iy);
+}
+
+/** Grid cells of the visible, matching sites in a box at a zoom, from the sites. */
 export async function mapCells(
 	db: Db,
 	viewer: Viewer,
@@ -86,30 +124,35 @@ export async function mapCells(
 	zoom: number,
 	filters: SiteFilters
 ): Promise<MapCell[]> {
-	const { ix, iy } = cellIndex(zoom);
-	const hf = site.heatFlowMWm2;
-	const rows = await db
-		.select({
-			ix,
-			iy,
-			count: sql<number>`count(*)::int`,
-			meanMWm2: sql<number | null>`avg(${hf})::float8`,
-			minMWm2: sql<number | null>`min(${hf})`,
-			maxMWm2: sql<number | null>`max(${hf})`
-		})
-		.from(site)
-		.innerJoin(dataset, eq(site.datasetId, dataset.id))
-		.where(where(viewer, filters, box))
-		.groupBy(ix, iy);
-	return rows.map((r) => ({
-		...r,
-		meanMWm2: r.meanMWm2 === null ? null : Math.round(r.meanMWm2 * 10) / 10
-	}));
+	return combineParts(await liveParts(db, viewer, box, zoom, filters));
+}
+
+/**
+ * Whole cells covering the box from the pre-built cells of the visible datasets, plus the cells
+ * of stale datasets from their sites (map-cells.ts); the stale list is read once so each dataset
+ * is counted by exactly one of the two.
+ */
+async function prebuiltCells(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters
+): Promise<MapCell[]> {
+	const range = cellRange(box, zoom);
+	const stale = await staleDatasetIds(db);
+	const [built, live] = await Promise.all([
+		prebuiltParts(db, viewer, range, zoom, filters, stale),
+		stale.length ? liveParts(db, viewer, range.whole, zoom, filters, stale) : []
+	]);
+	refreshStaleCellsSoon(db, stale);
+	return combineParts(built, live);
 }
 
 /**
  * What the map draws for a view: single sites from SITE_ZOOM when the view holds at most
- * MAX_SITES of them, otherwise cells.
+ * MAX_SITES of them, otherwise cells. Up to PREBUILT_MAX_ZOOM without site filters the cells are
+ * the pre-built ones, asked first: a crowded view then costs no site query at all.
  */
 export async function mapData(
 	db: Db,
@@ -118,6 +161,20 @@ export async function mapData(
 	zoom: number,
 	filters: SiteFilters
 ): Promise<MapData> {
+	const cellsAnswer = (cells: MapCell[]): MapData => ({
+		kind: 'cells',
+		zoom,
+		cellPx: CELL_PX,
+		count: cells.reduce((n, c) => n + c.count, 0),
+		cells
+	});
+	let cells: MapCell[] | undefined;
+	if (prebuiltCanAnswer(zoom, filters)) {
+		cells = await prebuiltCells(db, viewer, box, zoom, filters);
+		// Whole cells hold at least the sites of the view: more than MAX_SITES means cells.
+		if (zoom < SITE_ZOOM || cells.reduce((n, c) => n + c.count, 0) > MAX_SITES)
+			return cellsAnswer(cells);
+	}
 	if (zoom >= SITE_ZOOM) {
 		// Unordered, so a crowded view stops at MAX_SITES + 1 rows; sorted here for a stable ETag.
 		const sites = await visibleSitesInBox(db, viewer, box, filters, MAX_SITES + 1, false);
@@ -126,9 +183,7 @@ export async function mapData(
 			return { kind: 'sites', zoom, count: sites.length, sites };
 		}
 	}
-	const cells = await mapCells(db, viewer, box, zoom, filters);
-	const total = cells.reduce((n, c) => n + c.count, 0);
-	return { kind: 'cells', zoom, cellPx: CELL_PX, count: total, cells };
+	return cellsAnswer(cells ?? (await mapCells(db, viewer, box, zoom, filters)));
 }
 
 /** How many visible sites match the filters anywhere (the filter panel's live count). */
