@@ -365,10 +365,13 @@ describe('pre-built map cells', () => {
 		expect(res.status).toBe(200);
 		return res.json();
 	};
+	const counted = async (c: Client) =>
+		(await (await c.get(`/api/v1/map/count?dataset=${Object.values(datasets).join(',')}`)).json())
+			.count;
 	const answers = async () => ({
-		anonymous: [await view(anonymous, 3), await view(anonymous, 5)],
-		outsider: [await view(outsider, 3), await view(outsider, 5)],
-		member: [await view(member, 3), await view(member, 5)]
+		anonymous: [await view(anonymous, 3), await view(anonymous, 5), await counted(anonymous)],
+		outsider: [await view(outsider, 3), await view(outsider, 5), await counted(outsider)],
+		member: [await view(member, 3), await view(member, 5), await counted(member)]
 	});
 
 	it('answer as the sites do, before and after the rebuild, hidden datasets never counted', async () => {
@@ -377,6 +380,8 @@ describe('pre-built map cells', () => {
 		expect(before.anonymous[0].cells[0].maxMWm2).toBe(90);
 		expect(before.member[0].count).toBe(7);
 		expect(before.member[0].cells[0].maxMWm2).toBe(500);
+		expect(before.anonymous[2]).toBe(5);
+		expect(before.member[2]).toBe(7);
 		for (const id of Object.values(datasets)) await sql`SELECT map_cell_refresh(${id}::uuid)`;
 		const built = await sql`SELECT count(*)::int AS n FROM map_cell
 			WHERE dataset_id = ${datasets.priv}::uuid AND zoom = 3`;
