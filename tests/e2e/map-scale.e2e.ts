@@ -118,6 +118,26 @@ describe('the map at scale, in a browser', () => {
 		expect(comments.some((l) => l.startsWith('# Licence (SPDX): '))).toBe(true);
 		const rows = Papa.parse(csv, { comments: '#', header: true, skipEmptyLines: true }).data;
 		expect(rows.length).toBe(region.count);
+
+		// A polygon instead: three corners, then the first again; its statistics are the API's.
+		await page.getByTestId('draw-polygon').click();
+		const corners = [
+			[0.4, 0.15],
+			[0.9, 0.2],
+			[0.65, 0.8]
+		];
+		for (const [fx, fy] of [...corners, corners[0]]) {
+			await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+		}
+		await expect
+			.poll(() => stats.getAttribute('data-region'), { timeout: 15_000 })
+			.toMatch(/^polygon=/);
+		const param = (await stats.getAttribute('data-region'))!.slice('polygon='.length);
+		const inPolygon = await (await fetch(`${appUrl()}/api/v1/map/region?polygon=${param}`)).json();
+		await expect
+			.poll(() => page.getByTestId('region-count').textContent(), { timeout: 15_000 })
+			.toBe(inPolygon.count.toLocaleString('en'));
+		await screenshot(page, 'map-scale-polygon-1280');
 		expect(errors).toEqual([]);
 		await page.close();
 	});
