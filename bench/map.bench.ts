@@ -119,7 +119,9 @@ try {
 
 	// A rectangle over the middle of the Morrow Trough area (about 72,000 sites).
 	const region = { west: -104.5, south: 34.8, east: -98.5, north: 38.8 };
-	const stats = await timed(() => regionStatistics(db, ANONYMOUS, region, filters.none));
+	const stats = await timed(() =>
+		regionStatistics(db, ANONYMOUS, { kind: 'bbox', box: region }, filters.none)
+	);
 	const [rp50, rp95] = percentilesInPlace(Float64Array.from(stats.ms), [0.5, 0.95]);
 	const note = `${RUNS} runs; ${stats.last.count} sites in the rectangle`;
 	figure({

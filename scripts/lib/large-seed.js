@@ -188,6 +188,11 @@ export async function seedLarge(sql, sites, log = () => {}) {
 	});
 	await sql`ANALYZE site`;
 	await sql`ANALYZE temperature_log`;
+	// Build the map's pre-built cells now (migration 0015) rather than on the first map request.
+	for (const { id } of await sql`SELECT dataset_id AS id FROM map_cell_stale`) {
+		await sql`SELECT map_cell_refresh(${id}::uuid)`;
+	}
+	await sql`ANALYZE map_cell`;
 }
 
 /**

@@ -1,3 +1,5 @@
+import fs from 'node:fs';
+import Papa from 'papaparse';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl, launch, screenshot, watchForErrors } from './browser';
@@ -103,6 +105,39 @@ describe('the map at scale, in a browser', () => {
 			.poll(() => page.getByTestId('region-median').textContent())
 			.toBe(`${region.medianMWm2.toFixed(1)} mW/m²`);
 		await screenshot(page, 'map-scale-region-1280');
+
+		// Download the region as CSV: every site counted, each dataset's citation block above them.
+		const [download] = await Promise.all([
+			page.waitForEvent('download'),
+			page.getByTestId('region-download-csv').click()
+		]);
+		const csv = fs.readFileSync((await download.path())!, 'utf8');
+		const lines = csv.trimEnd().split('\n');
+		const comments = lines.filter((l) => l.startsWith('#'));
+		expect(comments.some((l) => l.startsWith('# Cite as: '))).toBe(true);
+		expect(comments.some((l) => l.startsWith('# Licence (SPDX): '))).toBe(true);
+		const rows = Papa.parse(csv, { comments: '#', header: true, skipEmptyLines: true }).data;
+		expect(rows.length).toBe(region.count);
+
+		// A polygon instead: three corners, then the first again; its statistics are the API's.
+		await page.getByTestId('draw-polygon').click();
+		const corners = [
+			[0.4, 0.15],
+			[0.9, 0.2],
+			[0.65, 0.8]
+		];
+		for (const [fx, fy] of [...corners, corners[0]]) {
+			await page.mouse.click(box.x + box.width * fx, box.y + box.height * fy);
+		}
+		await expect
+			.poll(() => stats.getAttribute('data-region'), { timeout: 15_000 })
+			.toMatch(/^polygon=/);
+		const param = (await stats.getAttribute('data-region'))!.slice('polygon='.length);
+		const inPolygon = await (await fetch(`${appUrl()}/api/v1/map/region?polygon=${param}`)).json();
+		await expect
+			.poll(() => page.getByTestId('region-count').textContent(), { timeout: 15_000 })
+			.toBe(inPolygon.count.toLocaleString('en'));
+		await screenshot(page, 'map-scale-polygon-1280');
 		expect(errors).toEqual([]);
 		await page.close();
 	});

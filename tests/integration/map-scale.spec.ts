@@ -107,7 +107,6 @@ afterAll(async () => {
 interface Cell {
 	count: number;
 	meanMWm2: number | null;
-	medianMWm2: number | null;
 	minMWm2: number | null;
 	maxMWm2: number | null;
 }
@@ -137,9 +136,10 @@ describe('/api/v1/map aggregates never include hidden sites', () => {
 			expect(cells[0].count).toBe(body.count);
 			expect(cells[0].maxMWm2).toBe(hiddenSeen ? 500 : 100);
 			if (!hiddenSeen) {
-				// 50, 60, 70, 80, 100, 90, 90: mean 540 / 7, median 80.
+				// 50, 60, 70, 80, 100, 90, 90: mean 540 / 7.
 				expect(cells[0].meanMWm2).toBeCloseTo(540 / 7, 1);
-				expect(cells[0].medianMWm2).toBe(80);
+				// Cells carry no median (it would stop the database from hash-aggregating).
+				expect(cells[0]).not.toHaveProperty('medianMWm2');
 				expect(cells[0].minMWm2).toBe(50);
 			}
 		}

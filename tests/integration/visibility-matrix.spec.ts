@@ -692,6 +692,12 @@ const ROUTES: Record<string, Row> = {
 					expect(cells.kind).toBe('cells');
 					expect(cells.count).toBe(shown ? 1 : 0);
 					expect(cells.cells.length).toBe(shown ? 1 : 0);
+					// Without site filters the cells come pre-built per dataset (or from the sites while
+					// the dataset is marked stale): the same rule.
+					const byDataset = JSON.parse(
+						await text(k, `/api/v1/map?bbox=${bbox}&zoom=3&dataset=${ids[c].dataset}`)
+					);
+					expect(byDataset.count > 0).toBe(shown);
 					const body = JSON.parse(await textOnce(k, `/api/v1/map?bbox=${bbox}&zoom=12&q=${run}`));
 					const found = body.sites.map((s: { id: string }) => s.id);
 					expect(found.includes(ids[c].site)).toBe(shown);
@@ -734,6 +740,66 @@ const ROUTES: Record<string, Row> = {
 					const code = `MX-${caseNames.indexOf(c)}-${run}`;
 					const body = JSON.parse(await text(k, `/api/v1/map/region?bbox=${bbox}&q=${code}`));
 					expect(body.count).toBe(sees(k, c) && CASES[c].map ? 1 : 0);
+				}
+			},
+			{
+				name: 'region statistics of a polygon (POST body and GET link)',
+				run: async (k, c) => {
+					const { west: w, south: s, east: e, north: n } = BOX;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const shown = sees(k, c) && CASES[c].map ? 1 : 0;
+					const ring = [
+						[w, s],
+						[e, s],
+						[e, n],
+						[w, n],
+						[w, s]
+					];
+					const posted = await clients[k].json(`/api/v1/map/region?q=${code}`, {
+						type: 'Polygon',
+						coordinates: [ring]
+					});
+					expect(posted.status).toBe(200);
+					expect((await posted.json()).count).toBe(shown);
+					const param = encodeURIComponent(ring.map((p) => p.join(' ')).join(','));
+					const got = JSON.parse(await text(k, `/api/v1/map/region?polygon=${param}&q=${code}`));
+					expect(got.count).toBe(shown);
+				}
+			}
+		]
+	},
+	'/api/v1/map/region/sites.csv': {
+		checks: [
+			{
+				name: 'region download (CSV) with citations',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const body = await text(k, `/api/v1/map/region/sites.csv?bbox=${bbox}&q=${code}`);
+					const shown = sees(k, c) && CASES[c].map;
+					// The `#` header repeats the query (and so the code): read the rows.
+					const rows = body.split('\n').filter((l) => l && !l.startsWith('#'));
+					expect(rows.slice(1).some((r) => r.startsWith(`${code},`))).toBe(shown);
+					expect(body.includes(`# Dataset 1 of 1: ${ids[c].dataset}`)).toBe(shown);
+				}
+			}
+		]
+	},
+	'/api/v1/map/region/sites.geojson': {
+		checks: [
+			{
+				name: 'region download (GeoJSON) with citations',
+				run: async (k, c) => {
+					const bbox = `${BOX.west},${BOX.south},${BOX.east},${BOX.north}`;
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const body = JSON.parse(
+						await text(k, `/api/v1/map/region/sites.geojson?bbox=${bbox}&q=${code}`)
+					);
+					const shown = sees(k, c) && CASES[c].map;
+					expect(body.features.length).toBe(shown ? 1 : 0);
+					expect(body.metadata.datasets.map((d: { id: string }) => d.id)).toEqual(
+						shown ? [ids[c].dataset] : []
+					);
 				}
 			}
 		]

@@ -10,7 +10,8 @@ import { SITE_EXPORT_COLUMNS } from './site-columns';
 /** A site row with `lon`/`lat` in degrees (WGS 84) and the other keys of the site table. */
 export type ExportSite = Record<string, unknown> & { lon: number; lat: number };
 
-function cell(v: unknown): CsvCell {
+/** A site value as a CSV cell (lists joined with commas); shared with the region download. */
+export function sitesCsvCell(v: unknown): CsvCell {
 	if (Array.isArray(v)) return v.join(', ');
 	if (v === null || v === undefined) return null;
 	return typeof v === 'number' || typeof v === 'boolean' ? v : String(v);
@@ -19,7 +20,7 @@ function cell(v: unknown): CsvCell {
 export function sitesCsv(sites: readonly ExportSite[], citation: CitationFields): string {
 	return writeCsv(
 		SITE_EXPORT_COLUMNS.map((c) => c.header),
-		sites.map((s) => SITE_EXPORT_COLUMNS.map((c) => cell(s[c.key]))),
+		sites.map((s) => SITE_EXPORT_COLUMNS.map((c) => sitesCsvCell(s[c.key]))),
 		citationComments(citation)
 	);
 }

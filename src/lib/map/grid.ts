@@ -70,9 +70,13 @@ export interface MapCell {
 	ix: number;
 	iy: number;
 	count: number;
-	/** Heat-flow statistics (mW/m²) of the cell's sites that have a value; null when none has. */
+	/**
+	 * Heat-flow statistics (mW/m²) of the cell's sites that have a value; null when none has. No
+	 * median: an ordered-set aggregate per cell forces a sort of every site in view, while count,
+	 * mean, min and max let PostgreSQL hash-aggregate in parallel (DEVELOPERS.md "The map at
+	 * scale"). The region statistics give the median of a drawn region.
+	 */
 	meanMWm2: number | null;
-	medianMWm2: number | null;
 	minMWm2: number | null;
 	maxMWm2: number | null;
 }

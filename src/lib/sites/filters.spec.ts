@@ -13,7 +13,8 @@ describe('site filters in the URL', () => {
 		const f = parseSiteFilters(
 			new URLSearchParams(
 				'quality=well-constrained,constrained&method=bullard&minHeatFlow=40&maxHeatFlow=120.5&q=KGS&page=2' +
-					'&organisation=org-a&dataset=5a0c1d3e-0000-4000-8000-000000000001&yearFrom=1970&yearTo=1990&hasLog=1'
+					'&organisation=org-a&dataset=5a0c1d3e-0000-4000-8000-000000000001&yearFrom=1970&yearTo=1990&hasLog=1' +
+					'&flag=near-existing-site,heat-flow-negative'
 			)
 		);
 		expect(f).toEqual({
@@ -27,6 +28,7 @@ describe('site filters in the URL', () => {
 			yearFrom: 1970,
 			yearTo: 1990,
 			hasLog: true,
+			flag: ['near-existing-site', 'heat-flow-negative'],
 			page: 2
 		});
 		expect(parseSiteFilters(filtersToParams(f))).toEqual(f);
@@ -93,5 +95,6 @@ describe('site filter problems', () => {
 		expect(problems('quality=best')).toEqual(['unknown quality class "best"']);
 		expect(problems('dataset=not-a-uuid')).toEqual(['dataset "not-a-uuid" is not an id']);
 		expect(problems('hasLog=maybe')).toEqual(['hasLog must be 1 or 0']);
+		expect(problems('flag=heat-flow-negative,bogus')).toEqual(['unknown flag "bogus"']);
 	});
 });

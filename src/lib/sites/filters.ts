@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { SITE_FLAGS } from './flags';
 import { HEAT_FLOW_METHODS } from './methods';
 import { QUALITY_CLASSES } from './quality';
 
@@ -14,6 +15,7 @@ import { QUALITY_CLASSES } from './quality';
  *   dataset=<uuid>,<uuid>                 datasets (ids)
  *   yearFrom=1970&yearTo=1990             year measured, inclusive
  *   hasLog=1                              only sites with at least one temperature log
+ *   flag=heat-flow-implausible,…          sites carrying any of these import warning flags
  *   page=2                                1-based page of a table (the map and API ignore it)
  *
  * A bad or unknown value is dropped instead of failing the page, so an old or hand-edited link
@@ -96,7 +98,8 @@ export const siteFilterSchema = z.object({
 		.string()
 		.transform((v) => v === '1' || v === 'true' || v === 'on')
 		.catch(false),
-	// Hook: the import warning flags (kept by the import checks) become one more list filter here.
+	/** Import warning flags (flags.ts): a site matches when it carries any of them. */
+	flag: oneOfList(SITE_FLAGS),
 	page: z.coerce.number().int().min(1).max(MAX_PAGE).catch(1)
 });
 
@@ -104,7 +107,7 @@ export type SiteFilters = z.output<typeof siteFilterSchema>;
 
 export const NO_FILTERS: SiteFilters = siteFilterSchema.parse({});
 
-const LIST_KEYS = ['quality', 'method', 'organisation', 'dataset'] as const;
+const LIST_KEYS = ['quality', 'method', 'organisation', 'dataset', 'flag'] as const;
 
 /** Read the filters from query parameters (a URL's or a submitted GET form's). */
 export function parseSiteFilters(params: URLSearchParams): SiteFilters {
@@ -130,6 +133,7 @@ export function filtersToParams(f: SiteFilters): URLSearchParams {
 	if (f.yearFrom !== null) p.set('yearFrom', String(f.yearFrom));
 	if (f.yearTo !== null) p.set('yearTo', String(f.yearTo));
 	if (f.hasLog) p.set('hasLog', '1');
+	if (f.flag.length) p.set('flag', f.flag.join(','));
 	if (f.page > 1) p.set('page', String(f.page));
 	return p;
 }
@@ -149,7 +153,8 @@ export function siteFilterProblems(params: URLSearchParams): string[] {
 	const f = parseSiteFilters(params);
 	const lists: [string, readonly string[], string][] = [
 		['quality', QUALITY_CLASSES, 'quality class'],
-		['method', HEAT_FLOW_METHODS, 'method']
+		['method', HEAT_FLOW_METHODS, 'method'],
+		['flag', SITE_FLAGS, 'flag']
 	];
 	for (const [key, allowed, what] of lists) {
 		for (const v of params.getAll(key).flatMap((x) => x.split(','))) {

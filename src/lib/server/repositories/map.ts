@@ -1,4 +1,5 @@
-import { and, asc, count, eq, or, sql, type SQL } from 'drizzle-orm';
+import { error } from '@sveltejs/kit';
+import { and, asc, count, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
 import {
 	CELL_PX,
 	cellSizeM,
@@ -10,11 +11,21 @@ import {
 	type MapData
 } from '$lib/map/grid';
 import { HISTOGRAM_BIN_MWM2, HISTOGRAM_MAX_MWM2, type RegionStatistics } from '$lib/map/region';
+import { ringBounds, type Position, type Region } from '$lib/map/region-shape';
 import type { SiteSearchHit } from '$lib/map/search';
 import type { SiteFilters } from '$lib/sites/filters';
 import { visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
 import { dataset, organisation, site } from '../db/schema';
+import {
+	cellRange,
+	combineParts,
+	prebuiltCanAnswer,
+	prebuiltParts,
+	refreshStaleCellsSoon,
+	staleDatasetIds,
+	type CellParts
+} from './map-cells';
 import { siteFilterConditions, visibleSitesInBox, type BoundingBox } from './sites';
 
 /**
@@ -34,6 +45,35 @@ function where(viewer: Viewer, filters: SiteFilters, box?: BoundingBox): SQL {
 	)!;
 }
 
+const polygonGeometry = (ring: readonly Position[]) =>
+	sql`ST_SetSRID(ST_GeomFromGeoJSON(${JSON.stringify({ type: 'Polygon', coordinates: [ring] })}), 4326)`;
+
+/**
+ * Sites inside a region: the box test first (GiST index), then, for a polygon, the exact test
+ * (points on the outline count as inside).
+ */
+export function regionCondition(region: Region): SQL {
+	if (region.kind === 'bbox') return sql`${site.location} && ${envelope(region.box)}`;
+	return and(
+		sql`${site.location} && ${envelope(ringBounds(region.ring))}`,
+		sql`ST_Intersects(${site.location}, ${polygonGeometry(region.ring)})`
+	)!;
+}
+
+/** A polygon that crosses itself is refused with PostGIS's reason (a 400), not half-answered. */
+export async function assertValidRegion(db: Db, region: Region): Promise<void> {
+	if (region.kind !== 'polygon') return;
+	const [row] = await db.execute<{ reason: string }>(
+		sql`SELECT ST_IsValidReason(${polygonGeometry(region.ring)}) AS reason`
+	);
+	if (row.reason !== 'Valid Geometry') error(400, `the polygon is not valid: ${row.reason}`);
+}
+
+/** The visible sites matching the filters inside a region (statistics and downloads). */
+export function regionWhere(viewer: Viewer, filters: SiteFilters, region: Region): SQL {
+	return and(regionCondition(region), visibleOnMaps(viewer), ...siteFilterConditions(filters))!;
+}
+
 /**
  * Cell index expressions in Web Mercator metres, written out (not ST_Transform) because plain
  * arithmetic on ST_X/ST_Y is several times cheaper per row. The numbers are ours (from the zoom),
@@ -47,7 +87,36 @@ function cellIndex(zoom: number) {
 	return { ix, iy };
 }
 
-/** Grid cells of the visible, matching sites in a box at a zoom. */
+/** Cell sums of the visible, matching sites in a box at a zoom, straight from the sites. */
+async function liveParts(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters,
+	datasetIds?: string[]
+): Promise<CellParts[]> {
+	const { ix, iy } = cellIndex(zoom);
+	const hf = site.heatFlowMWm2;
+	return db
+		.select({
+			ix,
+			iy,
+			count: sql<number>`count(*)::int`,
+			withValue: sql<number>`count(${hf})::int`,
+			sumMWm2: sql<number | null>`sum(${hf})`,
+			minMWm2: sql<number | null>`min(${hf})`,
+			maxMWm2: sql<number | null>`max(${hf})`
+		})
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(
+			and(where(viewer, filters, box), datasetIds ? inArray(site.datasetId, datasetIds) : undefined)
+		)
+		.groupBy(ix, iy);
+}
+
+/** Grid cells of the visible, matching sites in a box at a zoom, from the sites. */
 export async function mapCells(
 	db: Db,
 	viewer: Viewer,
@@ -55,31 +124,35 @@ export async function mapCells(
 	zoom: number,
 	filters: SiteFilters
 ): Promise<MapCell[]> {
-	const { ix, iy } = cellIndex(zoom);
-	const hf = site.heatFlowMWm2;
-	const rows = await db
-		.select({
-			ix,
-			iy,
-			count: sql<number>`count(*)::int`,
-			meanMWm2: sql<number | null>`avg(${hf})::float8`,
-			medianMWm2: sql<number | null>`percentile_cont(0.5) WITHIN GROUP (ORDER BY ${hf})`,
-			minMWm2: sql<number | null>`min(${hf})`,
-			maxMWm2: sql<number | null>`max(${hf})`
-		})
-		.from(site)
-		.innerJoin(dataset, eq(site.datasetId, dataset.id))
-		.where(where(viewer, filters, box))
-		.groupBy(ix, iy);
-	return rows.map((r) => ({
-		...r,
-		meanMWm2: r.meanMWm2 === null ? null : Math.round(r.meanMWm2 * 10) / 10
-	}));
+	return combineParts(await liveParts(db, viewer, box, zoom, filters));
+}
+
+/**
+ * Whole cells covering the box from the pre-built cells of the visible datasets, plus the cells
+ * of stale datasets from their sites (map-cells.ts); the stale list is read once so each dataset
+ * is counted by exactly one of the two.
+ */
+async function prebuiltCells(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters
+): Promise<MapCell[]> {
+	const range = cellRange(box, zoom);
+	const stale = await staleDatasetIds(db);
+	const [built, live] = await Promise.all([
+		prebuiltParts(db, viewer, range, zoom, filters, stale),
+		stale.length ? liveParts(db, viewer, range.whole, zoom, filters, stale) : []
+	]);
+	refreshStaleCellsSoon(db, stale);
+	return combineParts(built, live);
 }
 
 /**
  * What the map draws for a view: single sites from SITE_ZOOM when the view holds at most
- * MAX_SITES of them, otherwise cells.
+ * MAX_SITES of them, otherwise cells. Up to PREBUILT_MAX_ZOOM without site filters the cells are
+ * the pre-built ones, asked first: a crowded view then costs no site query at all.
  */
 export async function mapData(
 	db: Db,
@@ -88,6 +161,20 @@ export async function mapData(
 	zoom: number,
 	filters: SiteFilters
 ): Promise<MapData> {
+	const cellsAnswer = (cells: MapCell[]): MapData => ({
+		kind: 'cells',
+		zoom,
+		cellPx: CELL_PX,
+		count: cells.reduce((n, c) => n + c.count, 0),
+		cells
+	});
+	let cells: MapCell[] | undefined;
+	if (prebuiltCanAnswer(zoom, filters)) {
+		cells = await prebuiltCells(db, viewer, box, zoom, filters);
+		// Whole cells hold at least the sites of the view: more than MAX_SITES means cells.
+		if (zoom < SITE_ZOOM || cells.reduce((n, c) => n + c.count, 0) > MAX_SITES)
+			return cellsAnswer(cells);
+	}
 	if (zoom >= SITE_ZOOM) {
 		// Unordered, so a crowded view stops at MAX_SITES + 1 rows; sorted here for a stable ETag.
 		const sites = await visibleSitesInBox(db, viewer, box, filters, MAX_SITES + 1, false);
@@ -96,9 +183,7 @@ export async function mapData(
 			return { kind: 'sites', zoom, count: sites.length, sites };
 		}
 	}
-	const cells = await mapCells(db, viewer, box, zoom, filters);
-	const total = cells.reduce((n, c) => n + c.count, 0);
-	return { kind: 'cells', zoom, cellPx: CELL_PX, count: total, cells };
+	return cellsAnswer(cells ?? (await mapCells(db, viewer, box, zoom, filters)));
 }
 
 /** How many visible sites match the filters anywhere (the filter panel's live count). */
@@ -107,6 +192,12 @@ export async function countMatchingSites(
 	viewer: Viewer,
 	filters: SiteFilters
 ): Promise<number> {
+	// Without site filters: the zoom-0 pre-built cells of the whole world hold every site once.
+	if (prebuiltCanAnswer(0, filters)) {
+		const world = { west: -180, south: -90, east: 180, north: 90 };
+		const cells = await prebuiltCells(db, viewer, world, 0, filters);
+		return cells.reduce((n, c) => n + c.count, 0);
+	}
 	const [row] = await db
 		.select({ n: count() })
 		.from(site)
@@ -145,18 +236,19 @@ export async function searchVisibleSites(
 }
 
 /**
- * Statistics of the visible, matching sites inside a box. Percentiles are PostgreSQL's
+ * Statistics of the visible, matching sites inside a region (rectangle or polygon). Percentiles are PostgreSQL's
  * percentile_cont (linear interpolation between order statistics, definition 7 of Hyndman & Fan
  * 1996, from memory); the standard deviation is the sample one (stddev_samp).
  */
 export async function regionStatistics(
 	db: Db,
 	viewer: Viewer,
-	box: BoundingBox,
+	region: Region,
 	filters: SiteFilters
 ): Promise<RegionStatistics> {
+	await assertValidRegion(db, region);
 	const hf = site.heatFlowMWm2;
-	const condition = where(viewer, filters, box);
+	const condition = regionWhere(viewer, filters, region);
 	const bin = sql<number>`least(floor(${hf} / ${sql.raw(String(HISTOGRAM_BIN_MWM2))}), ${sql.raw(String(HISTOGRAM_MAX_MWM2 / HISTOGRAM_BIN_MWM2))})::int`;
 	const [[stats], bins, quality] = await Promise.all([
 		db

@@ -1,5 +1,6 @@
 import {
 	and,
+	arrayOverlaps,
 	asc,
 	count,
 	desc,
@@ -60,6 +61,8 @@ export function siteFilterConditions(f: SiteFilters): SQL[] {
 	if (f.dataset.length) conditions.push(inArray(site.datasetId, f.dataset));
 	if (f.yearFrom !== null) conditions.push(gte(site.yearMeasured, f.yearFrom));
 	if (f.yearTo !== null) conditions.push(lte(site.yearMeasured, f.yearTo));
+	// && (overlaps) uses the GIN index on flags: a site with any of the chosen flags.
+	if (f.flag.length) conditions.push(arrayOverlaps(site.flags, f.flag));
 	if (f.hasLog) {
 		conditions.push(
 			sql`EXISTS (SELECT 1 FROM ${temperatureLog} WHERE ${temperatureLog.siteId} = ${site.id})`

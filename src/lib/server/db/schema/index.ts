@@ -10,3 +10,4 @@ export * from './audit';
 export * from './grids';
 export * from './access';
 export * from './api-keys';
+export * from './map-cells';

@@ -1,0 +1,14 @@
+import { getDb } from '$lib/server/db';
+import { regionQuery } from '$lib/server/region-query';
+import { regionDownload } from '$lib/server/repositories/region-download';
+import type { RequestHandler } from './$types';
+
+/**
+ * The visible sites of a map region (`bbox` or `polygon`) matching the map's filters as
+ * CSV, with the citation and licence of every dataset they come from (region-download.ts).
+ */
+export const GET: RequestHandler = async ({ url, locals }) => {
+	const { region, filters } = regionQuery(url.searchParams);
+	const d = await regionDownload(getDb(), locals.viewer, region, filters, 'csv', url.origin);
+	return new Response(d.body, { headers: d.headers });
+};
