@@ -149,7 +149,12 @@ const PAGES: { who: string; email: string | null; paths: string[] }[] = [
 			'/organisations/korvald-survey',
 			'/help',
 			'/help/publish',
+			'/help/import',
+			'/help/fix-rows',
 			'/help/roles',
+			'/help/visibility',
+			'/help/citing',
+			'/help/models',
 			'/api',
 			'/sign-in',
 			'/sign-up',
@@ -163,7 +168,8 @@ const PAGES: { who: string; email: string | null; paths: string[] }[] = [
 			'/account',
 			'/datasets/new',
 			'/organisations/new',
-			'/organisations/korvald-survey/settings'
+			'/organisations/korvald-survey/settings',
+			'/audit'
 		]
 	},
 	{ who: 'a platform administrator', email: 'admin@thermalith.example', paths: ['/admin'] }
