@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { getDb } from '$lib/server/db';
 import { mapQuery } from '$lib/server/map-query';
 import { privateJson } from '$lib/server/private-json';
@@ -9,7 +10,7 @@ import type { RequestHandler } from './$types';
  * drawn on the map). Downloading those sites with their citations belongs to the dataset
  * downloads; the region panel links there with the same bbox and filters.
  */
-export const GET: RequestHandler = async ({ url, locals, request }) => {
+export const GET: RequestHandler = apiHandler(async ({ url, locals, request }) => {
 	const { box, filters } = mapQuery(url.searchParams);
 	return privateJson(request, await regionStatistics(getDb(), locals.viewer, box, filters));
-};
+});
