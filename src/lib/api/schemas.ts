@@ -298,6 +298,9 @@ export const heatFlowResponseSchema = z
 		gradientKPerKm: z.number(),
 		sigmaGradientKPerKm: z.number(),
 		meanConductivityWmK: z.number(),
+		sigmaMeanConductivityWmK: z
+			.number()
+			.meta({ description: '1-σ of the mean conductivity from the intervals’ σ (0 without).' }),
 		interceptC: z.number(),
 		samples: z.number().int()
 	})
