@@ -25,6 +25,7 @@ import { crossOriginRefusal } from '$lib/server/origin-check';
 import { withSecurityHeaders } from '$lib/server/security-headers';
 import { viewerFor } from '$lib/server/session-viewer';
 import { authenticateKey } from '$lib/server/api/key-auth';
+import { apiPreflight, isApiPath, withApiCors } from '$lib/server/api/cors';
 
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {
@@ -72,6 +73,13 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	});
 };
 
+/** /api/v1 may be called from scripts on other origins, without cookies (api/cors.ts). */
+const apiCors: Handle = async ({ event, resolve }) => {
+	if (!isApiPath(event.url.pathname)) return resolve(event);
+	if (event.request.method === 'OPTIONS') return apiPreflight();
+	return withApiCors(await resolve(event));
+};
+
 /** PostgreSQL unreachable: 503 with Retry-After instead of a 500 (database-down.ts says why). */
 const databaseDown: Handle = async ({ event, resolve }) => {
 	try {
@@ -111,7 +119,13 @@ const session: Handle = async ({ event, resolve }) => {
 	return svelteKitHandler({ event, resolve, auth: auth(), building });
 };
 
-export const handle: Handle = sequence(securityHeaders, databaseDown, requestGuards, session);
+export const handle: Handle = sequence(
+	securityHeaders,
+	apiCors,
+	databaseDown,
+	requestGuards,
+	session
+);
 
 /** Unexpected errors: log them with an id the user can quote; show nothing internal. */
 export const handleError: HandleServerError = ({ error, event, status, message }) => {

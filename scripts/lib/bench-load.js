@@ -93,3 +93,55 @@ export function summariseRss(samples) {
 		flat: lateMedianMB <= earlyMedianMB * 1.1
 	};
 }
+
+/**
+ * The box a 1280 × 800 px map view shows around a centre at a zoom (256-px Web Mercator tiles),
+ * as `west,south,east,north` for the map's data route.
+ * @param {number} lon @param {number} lat @param {number} zoom
+ */
+export function viewBox(lon, lat, zoom) {
+	const degPerPx = 360 / (256 * 2 ** zoom);
+	const halfW = Math.min(180, 640 * degPerPx);
+	const halfH = Math.min(85, 400 * degPerPx * Math.cos((lat * Math.PI) / 180));
+	const r = (/** @type {number} */ v) => Math.round(v * 1e5) / 1e5;
+	return [
+		r(Math.max(-180, lon - halfW)),
+		r(Math.max(-85, lat - halfH)),
+		r(Math.min(180, lon + halfW)),
+		r(Math.min(85, lat + halfH))
+	].join(',');
+}
+
+/**
+ * Targets in the database of an app that is already running (`--url`): a public dataset of the
+ * large scenario (`npm run seed:large`) when it is there, else the demo's first public one; its
+ * centre, extent and one of its sites.
+ * @param {string} databaseUrl @param {string} largeOrgId
+ */
+export async function runningAppTargets(databaseUrl, largeOrgId) {
+	const sql = postgres(databaseUrl, { max: 1, onnotice: () => {} });
+	try {
+		const [row] = await sql`
+			SELECT d.id, d.title, (d.organisation_id = ${largeOrgId}) AS large,
+				ST_X(ST_Centroid(ST_Extent(s.location))) AS lon, ST_Y(ST_Centroid(ST_Extent(s.location))) AS lat,
+				count(*)::int AS sites, min(s.id::text) AS site_id
+			FROM dataset d JOIN site s ON s.dataset_id = d.id
+			WHERE d.status = 'published' AND d.visibility = 'public'
+			GROUP BY d.id
+			ORDER BY (d.organisation_id = ${largeOrgId}) DESC, count(*) DESC
+			LIMIT 1`;
+		if (!row) throw new Error('no published public dataset with sites in that database');
+		const [{ total }] = await sql`SELECT count(*)::int AS total FROM site`;
+		return {
+			datasetTitle: /** @type {string} */ (row.title),
+			large: /** @type {boolean} */ (row.large),
+			lon: Number(row.lon),
+			lat: Number(row.lat),
+			datasetSites: /** @type {number} */ (row.sites),
+			totalSites: /** @type {number} */ (total),
+			siteId: /** @type {string} */ (row.site_id)
+		};
+	} finally {
+		await sql.end();
+	}
+}

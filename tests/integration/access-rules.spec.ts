@@ -58,7 +58,7 @@ describe('deleting files', () => {
 		const owners = await fileBy('owner');
 		const res = await contributor.json(`/api/v1/attachments/${owners}`, undefined, 'DELETE');
 		expect(res.status).toBe(403);
-		expect((await res.json()).message).toBe(
+		expect((await res.json()).error.message).toBe(
 			'You may delete only files you uploaded; ask a curator of the organisation.'
 		);
 		expect(await exists(owners)).toBe(true);
@@ -128,7 +128,10 @@ describe('ids', () => {
 			const a = await ask(hidden);
 			const b = await ask(unknown);
 			expect(a, template).toEqual(b);
-			expect(a).toEqual({ status: 404, body: { message: NOT_FOUND_MESSAGE } });
+			expect(a).toEqual({
+				status: 404,
+				body: { error: { code: 'not_found', message: NOT_FOUND_MESSAGE, details: {} } }
+			});
 		}
 		const page = async (id: string) => {
 			const res = await outsider.get(`/datasets/${id}`);

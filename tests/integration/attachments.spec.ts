@@ -123,7 +123,7 @@ describe('attachments', () => {
 		html.write('<html><script>alert(document.cookie)</script></html>');
 		const again = await contributor.put(uploadUrl, html);
 		expect(again.status).toBe(409);
-		expect((await again.json()).message).toContain('cannot be replaced');
+		expect((await again.json()).error.message).toContain('cannot be replaced');
 
 		const [after] = await db.select().from(attachment).where(eq(attachment.id, id));
 		expect(after).toEqual(before);
@@ -170,7 +170,7 @@ describe('attachments', () => {
 		const exe = Buffer.concat([Buffer.from('MZ'), Buffer.alloc(510, 0)]);
 		const { id, put } = await upload('report.pdf', exe);
 		expect(put.status).toBe(415);
-		expect((await put.json()).message).toContain('executable');
+		expect((await put.json()).error.message).toContain('executable');
 		expect(await db.select().from(attachment).where(eq(attachment.id, id))).toEqual([]);
 	});
 
@@ -178,7 +178,7 @@ describe('attachments', () => {
 		const { id, uploadUrl } = await announce('short.txt', 100);
 		const res = await contributor.put(uploadUrl, Buffer.from('only a few bytes'));
 		expect(res.status).toBe(400);
-		expect((await res.json()).message).toContain('announced size');
+		expect((await res.json()).error.message).toContain('announced size');
 		expect(await db.select().from(attachment).where(eq(attachment.id, id))).toEqual([]);
 	});
 
@@ -189,7 +189,7 @@ describe('attachments', () => {
 		const owner = await signIn('owner@korvald-survey.example', DEMO_PASSWORD);
 		const res = await owner.put(uploadUrl, bytes);
 		expect(res.status).toBe(403);
-		expect((await res.json()).message).toContain('announced');
+		expect((await res.json()).error.message).toContain('announced');
 		expect((await new Client().put(uploadUrl, bytes)).status).toBe(401);
 		const [row] = await db.select().from(attachment).where(eq(attachment.id, id));
 		expect(row.status).toBe('pending');
@@ -212,6 +212,6 @@ describe('attachments', () => {
 			sizeBytes: 51 * 1024 * 1024
 		});
 		expect(res.status).toBe(413);
-		expect((await res.json()).message).toContain('limit is 50 MB');
+		expect((await res.json()).error.message).toContain('limit is 50 MB');
 	});
 });

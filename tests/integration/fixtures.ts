@@ -41,7 +41,7 @@ export async function uploadForImport(
 	if (put.status !== 200) throw new Error(`content: ${put.status} ${await put.text()}`);
 	const started = await client.json(`/api/v1/datasets/${datasetId}/imports`, { attachmentId: id });
 	const body = await started.json();
-	if (started.status !== 201) throw new Error(`start: ${started.status} ${body.message}`);
+	if (started.status !== 201) throw new Error(`start: ${started.status} ${body.error?.message}`);
 	return body as {
 		batchId: string;
 		headers: string[];
@@ -74,7 +74,7 @@ export async function uploadAndPreview(
 		...extra
 	});
 	const preview = await res.json();
-	if (res.status !== 200) throw new Error(`preview: ${res.status} ${preview.message}`);
+	if (res.status !== 200) throw new Error(`preview: ${res.status} ${preview.error?.message}`);
 	return { batchId: up.batchId, headers: up.headers, mapping: up.suggested, preview };
 }
 

@@ -228,7 +228,7 @@ describe('a kriging grid requested by an anonymous visitor', () => {
 		expect(viaGet.heatFlowMWm2).toEqual(stats.heatFlowMWm2);
 		const bad = await anonymous.json(`/api/v1/grids/${id}/statistics`, { bbox: [9, 60, 8, 59] });
 		expect(bad.status).toBe(400);
-		expect((await bad.json()).message).toMatch(/^Bad region: .*west < east/);
+		expect((await bad.json()).error.message).toMatch(/^Bad region: .*west < east/);
 	});
 
 	it('cites the datasets that shaped it (public survey only) in the CSV and the contours', async () => {
@@ -304,8 +304,8 @@ describe('bad grid requests', () => {
 	])('%s: 400 with a sentence', async (_name, body, message) => {
 		const { res, body: answer } = await post(anonymous, body);
 		expect(res.status).toBe(400);
-		expect(answer.message).toMatch(message);
-		expect(answer.message).toMatch(/^Bad grid request: .+\.$/);
+		expect(answer.error.message).toMatch(message);
+		expect(answer.error.message).toMatch(/^Bad grid request: .+\.$/);
 	});
 
 	it('a body that is not JSON: 400', async () => {
@@ -315,7 +315,7 @@ describe('bad grid requests', () => {
 			body: '{"bbox": [NaN, 1, 2, 3]}'
 		});
 		expect(res.status).toBe(400);
-		expect((await res.json()).message).toMatch(/JSON/);
+		expect((await res.json()).error.message).toMatch(/JSON/);
 	});
 
 	it('more new grids than the limit from one address: 429 with Retry-After; cached ones still answer', async () => {
@@ -326,7 +326,7 @@ describe('bad grid requests', () => {
 		const refused = await post(caller, distinct(max));
 		expect(refused.res.status).toBe(429);
 		expect(Number(refused.res.headers.get('retry-after'))).toBeGreaterThan(0);
-		expect(refused.body.message).toMatch(/Too many new grids/);
+		expect(refused.body.error.message).toMatch(/Too many new grids/);
 		// A request for a grid that exists costs nothing and is not refused.
 		expect((await post(caller, distinct(0))).body.cached).toBe(true);
 	});

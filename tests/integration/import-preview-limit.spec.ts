@@ -42,6 +42,6 @@ describe('import preview', () => {
 		const over = await contributor.json(url, payload);
 		expect(over.status).toBe(429);
 		expect(Number(over.headers.get('retry-after'))).toBeGreaterThan(0);
-		expect((await over.json()).message).toMatch(/Too many requests/);
+		expect((await over.json()).error.message).toMatch(/Too many requests/);
 	}, 120_000);
 });

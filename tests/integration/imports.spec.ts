@@ -46,7 +46,7 @@ describe('table imports owned by the server', () => {
 		expect(blocked).toMatchObject({ status: 'blocked', code: 'BAD-7' });
 		const res = await commitRequest(contributor, batchId, preview.revision);
 		expect(res.status).toBe(400);
-		expect((await res.json()).message).toContain('Nothing was written');
+		expect((await res.json()).error.message).toContain('Nothing was written');
 		expect(await sitesIn(datasetId)).toBe(0);
 		// The original file is an attachment of the dataset, named by the batch.
 		const [b] = await db

@@ -316,7 +316,7 @@ describe('polygon regions', () => {
 		it(`refuses ${what} with 400 and a message`, async () => {
 			const res = await anonymous.json('/api/v1/map/region', body);
 			expect(res.status).toBe(400);
-			expect((await res.json()).message).toContain(message);
+			expect((await res.json()).error.message).toContain(message);
 		});
 	}
 
@@ -329,7 +329,7 @@ describe('polygon regions', () => {
 		]) {
 			const res = await fetch(testEnv.appUrl() + path);
 			expect(res.status).toBe(400);
-			expect((await res.json()).message).toContain(message);
+			expect((await res.json()).error.message).toContain(message);
 		}
 	});
 });

@@ -242,7 +242,7 @@ describe('/api/v1/map refuses malformed input with 400 and a message', () => {
 			// As a script asks (JSON), not as a browser page (which would get the HTML error page).
 			const res = await fetch(testEnv.appUrl() + path);
 			expect(res.status).toBe(400);
-			expect((await res.json()).message).toContain(message);
+			expect((await res.json()).error.message).toContain(message);
 		});
 	}
 });

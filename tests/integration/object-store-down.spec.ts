@@ -81,7 +81,7 @@ describe('object store down during an upload', () => {
 
 		const put = await answer;
 		expect(put.status).toBe(503);
-		expect((await put.json()).message).toMatch(/file store could not be reached.*not kept/i);
+		expect((await put.json()).error.message).toMatch(/file store could not be reached.*not kept/i);
 		// No row: neither the pending one nor a ready one.
 		expect(await fileRows(datasetId)).toEqual([]);
 		// The upload address of the failed attempt is gone too: the browser announces again.

@@ -37,7 +37,7 @@ describe('Origin check on state-changing API requests', () => {
 			);
 			expect(res.status).toBe(403);
 			expect(res.headers.get('content-type')).toContain('application/json');
-			expect((await res.json()).message).toMatch(/Cross-site request refused/);
+			expect((await res.json()).error.message).toMatch(/Cross-site request refused/);
 		}
 		expect(await batches()).toBe(0);
 	});

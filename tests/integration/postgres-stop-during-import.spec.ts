@@ -120,7 +120,7 @@ describe('PostgreSQL stopped during an import', () => {
 		const meanwhile = await contributor.get(`/api/v1/imports/${batchId}`);
 		expect(meanwhile.status).toBe(503);
 		expect(meanwhile.headers.get('retry-after')).toBeTruthy();
-		expect((await meanwhile.json()).message).toMatch(/database is not reachable/);
+		expect((await meanwhile.json()).error.message).toMatch(/database is not reachable/);
 
 		startCluster();
 

@@ -24,7 +24,7 @@ describe('/api/v1/sites.geojson', () => {
 	it('answers a malformed bbox with 400 and a message naming the bad part', async () => {
 		const res = await fetch(`${testEnv.appUrl()}/api/v1/sites.geojson?bbox=1,2,three,4`);
 		expect(res.status).toBe(400);
-		expect((await res.json()).message).toContain('east is not a number');
+		expect((await res.json()).error.message).toContain('east is not a number');
 	});
 
 	it('answers with the one site summary shape and applies the shared filters', async () => {

@@ -876,7 +876,7 @@ const ROUTES: Record<string, Row> = {
 					const res = await gridRequest(k, c);
 					if (!(sees(k, c) && CASES[c].map)) {
 						expect(res.status).toBe(400);
-						return expect((await res.json()).message).toMatch(/0 visible site/);
+						return expect((await res.json()).error.message).toMatch(/0 visible site/);
 					}
 					expect(res.status).toBe(202);
 					const { id } = await res.json();

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { HEAT_FLOW_METHODS } from '$lib/sites/methods';
 import { QUALITY_CLASSES } from '$lib/sites/quality';
+import { siteFeaturePropertiesSchema, siteSummarySchema } from '$lib/sites/summary';
+import { GRID_STATUSES } from '$lib/grids/status';
 
 /**
  * The schemas of /api/v1: requests are parsed with them, and the OpenAPI document
@@ -296,6 +298,9 @@ export const heatFlowResponseSchema = z
 		gradientKPerKm: z.number(),
 		sigmaGradientKPerKm: z.number(),
 		meanConductivityWmK: z.number(),
+		sigmaMeanConductivityWmK: z
+			.number()
+			.meta({ description: '1-σ of the mean conductivity from the intervals’ σ (0 without).' }),
 		interceptC: z.number(),
 		samples: z.number().int()
 	})
@@ -303,3 +308,275 @@ export const heatFlowResponseSchema = z
 
 export type GeothermRequest = z.input<typeof geothermRequestSchema>;
 export type GeothermResponse = z.output<typeof geothermResponseSchema>;
+
+// ---- the map's data (the app's own map reads these; filters as in $lib/sites/filters.ts) -----
+
+/**
+ * The map filters as query parameters, for the document: the routes read them with
+ * `parseSiteFilters` / `siteFilterProblems` ($lib/sites/filters.ts), which refuse malformed
+ * values with a 400; lists are comma-separated or repeated.
+ */
+const mapFilterParams = {
+	quality: z
+		.string()
+		.optional()
+		.meta({ description: `Comma list of quality classes: ${QUALITY_CLASSES.join(', ')}.` }),
+	method: z
+		.string()
+		.optional()
+		.meta({ description: `Comma list of methods: ${HEAT_FLOW_METHODS.join(', ')}.` }),
+	minHeatFlow: z.string().optional().meta({ description: 'mW/m², inclusive.' }),
+	maxHeatFlow: z.string().optional().meta({ description: 'mW/m², inclusive.' }),
+	q: z.string().optional().meta({ description: 'Site code or name contains.' }),
+	organisation: z.string().optional().meta({ description: 'Comma list of organisation ids.' }),
+	dataset: z.string().optional().meta({ description: 'Comma list of dataset ids.' }),
+	yearFrom: z.string().optional().meta({ description: 'Measured in or after this year.' }),
+	yearTo: z.string().optional().meta({ description: 'Measured in or before this year.' }),
+	hasLog: z.string().optional().meta({ description: '1: only sites with a temperature log.' })
+};
+const bboxParam = z
+	.string()
+	.meta({ description: 'west,south,east,north in WGS 84 degrees.', example: '5,50,15,60' });
+
+export const mapQuerySchema = z.object({
+	bbox: bboxParam,
+	zoom: z.string().meta({ description: 'Map zoom level, a whole number.', example: '5' }),
+	...mapFilterParams
+});
+export const mapCountQuerySchema = z.object({ bbox: bboxParam.optional(), ...mapFilterParams });
+export const mapRegionQuerySchema = z.object({ bbox: bboxParam, ...mapFilterParams });
+/** A region as a rectangle or a polygon (`lon lat,lon lat,…`), one of the two. */
+export const mapRegionShapeQuerySchema = z.object({
+	bbox: bboxParam.optional(),
+	polygon: z
+		.string()
+		.optional()
+		.meta({ description: 'Corners as `lon lat,lon lat,…` (at most 200), instead of bbox.' }),
+	...mapFilterParams
+});
+/** A drawn polygon as the body of POST /map/region (limits in $lib/map/region-shape.ts). */
+export const polygonBodySchema = z
+	.object({
+		type: z.literal('Polygon'),
+		coordinates: z.array(z.array(z.array(z.number()).min(2).max(3)))
+	})
+	.meta({ id: 'PolygonBody', description: 'A GeoJSON Polygon: one outer ring, no holes.' });
+
+const weightedSummarySchema = z.object({
+	coveredAreaM2: z.number(),
+	mean: z.number().nullable(),
+	p10: z.number().nullable(),
+	p50: z.number().nullable(),
+	p90: z.number().nullable()
+});
+/** Area-weighted statistics of a grid inside a region ($lib/grids/region-stats.ts). */
+export const gridRegionStatisticsSchema = z
+	.object({
+		regionAreaM2: z.number(),
+		heatFlowMWm2: weightedSummarySchema,
+		isothermDepthM: weightedSummarySchema.extend({
+			temperatureC: z.number(),
+			notReachedAreaM2: z.number()
+		})
+	})
+	.meta({ id: 'GridRegionStatistics' });
+export const mapSearchQuerySchema = z.object({
+	q: z.string().meta({ description: 'Start of a site code or name (1 to 100 characters).' })
+});
+export const sitesGeoJsonQuerySchema = mapRegionQuerySchema;
+
+/** A site as the map and the dataset table show it (no dataset id; $lib/sites/summary.ts). */
+export const mapSiteSchema = siteSummarySchema.meta({ id: 'MapSite' });
+
+const statistic = z.number().nullable();
+export const mapCellSchema = z
+	.object({
+		ix: z.number().int(),
+		iy: z.number().int(),
+		count: z.number().int(),
+		meanMWm2: statistic,
+		medianMWm2: statistic,
+		minMWm2: statistic,
+		maxMWm2: statistic
+	})
+	.meta({ id: 'MapCell', description: 'A square of the Web Mercator grid at this zoom.' });
+
+export const mapDataSchema = z
+	.discriminatedUnion('kind', [
+		z.object({
+			kind: z.literal('cells'),
+			zoom: z.number().int(),
+			cellPx: z.number().int(),
+			count: z.number().int(),
+			cells: z.array(mapCellSchema)
+		}),
+		z.object({
+			kind: z.literal('sites'),
+			zoom: z.number().int(),
+			count: z.number().int(),
+			sites: z.array(mapSiteSchema)
+		})
+	])
+	.meta({ id: 'MapData', description: 'Cells at low zoom or in a crowded view, else sites.' });
+
+export const mapCountSchema = z.object({ count: z.number().int() }).meta({ id: 'MapCount' });
+
+export const regionStatisticsSchema = z
+	.object({
+		count: z.number().int(),
+		withValue: z.number().int(),
+		meanMWm2: statistic,
+		medianMWm2: statistic,
+		stdDevMWm2: statistic,
+		p10MWm2: statistic,
+		p90MWm2: statistic,
+		minMWm2: statistic,
+		maxMWm2: statistic,
+		histogram: z.array(z.object({ fromMWm2: z.number(), count: z.number().int() })),
+		quality: z.array(
+			z.object({ qualityClass: z.enum(QUALITY_CLASSES).nullable(), count: z.number().int() })
+		)
+	})
+	.meta({ id: 'RegionStatistics' });
+
+export const siteSearchSchema = z
+	.object({
+		sites: z.array(
+			z.object({
+				id: z.uuid(),
+				code: z.string(),
+				name: z.string().nullable(),
+				lon: z.number(),
+				lat: z.number()
+			})
+		)
+	})
+	.meta({ id: 'SiteSearch' });
+
+export const mapFeatureCollectionSchema = z
+	.object({
+		type: z.literal('FeatureCollection'),
+		features: z.array(
+			z.object({
+				type: z.literal('Feature'),
+				id: z.uuid(),
+				geometry: z.object({
+					type: z.literal('Point'),
+					coordinates: z.array(z.number()).min(2).max(2)
+				}),
+				properties: siteFeaturePropertiesSchema
+			})
+		)
+	})
+	.meta({ id: 'MapFeatureCollection', description: 'RFC 7946; every visible site in the box.' });
+
+// ---- grids (request schema: $lib/grids/request.ts) -----------------------------------------
+
+export const gridAcceptedSchema = z
+	.object({
+		id: z.uuid(),
+		cached: z.boolean().meta({ description: 'True when the same grid was made or is queued.' }),
+		location: z.string().meta({ description: 'Address of the status document.' })
+	})
+	.meta({ id: 'GridAccepted' });
+
+const nullableNumber = z.number().nullable();
+
+export const gridStatusSchema = z
+	.object({
+		id: z.uuid(),
+		status: z.enum(GRID_STATUSES),
+		progress: z.number(),
+		error: z.string().nullable(),
+		request: z
+			.record(z.string(), z.unknown())
+			.meta({ description: 'The request as checked (defaults filled in).' }),
+		crs: z.object({ epsg: z.number().int(), name: z.string() }),
+		grid: z.record(z.string(), z.unknown()).meta({ description: 'Origin, cell size and shape.' }),
+		boundsWgs84: z.array(z.number()).min(4).max(4),
+		sitesUsed: z.number().int(),
+		maskedCells: z.number().int().nullable(),
+		valueRangeMWm2: z.array(z.number()).nullable(),
+		sigmaRangeMWm2: z.array(z.number()).nullable(),
+		variogram: z
+			.object({
+				model: z.enum(['spherical', 'exponential', 'gaussian']),
+				nuggetMWm2: z.number(),
+				sillMWm2: z.number(),
+				rangeM: z.number(),
+				source: z.enum(['fitted', 'user', 'default']),
+				note: z.string().nullable(),
+				meanMeasurementVarianceMWm2: z.number()
+			})
+			.nullable(),
+		measurementError: z.string().nullable(),
+		empiricalVariogram: z.array(z.record(z.string(), z.unknown())),
+		crossValidation: z
+			.object({
+				rmseMWm2: z.number(),
+				meanErrorMWm2: z.number(),
+				meanStandardisedError: nullableNumber,
+				rmsStandardisedError: nullableNumber,
+				pairs: z.array(z.array(z.number()))
+			})
+			.nullable(),
+		links: z.record(z.string(), z.string().nullable()).nullable(),
+		caution: z.string(),
+		atDepthAssumptions: z.string(),
+		createdAt: z.string().meta({ format: 'date-time' }),
+		finishedAt: z.string().nullable().meta({ format: 'date-time' })
+	})
+	.meta({ id: 'GridStatus', description: 'Progress, then the model and download links.' });
+
+export const GRID_FILE_NAMES = [
+	'heat-flow.tif',
+	'sigma.tif',
+	'grid.csv',
+	'contours.geojson',
+	'heat-flow.png',
+	'sigma.png',
+	'temperature-at-depth.tif',
+	'isotherm-depth.tif'
+] as const;
+
+export const gridFilePath = z.object({ id: z.uuid(), file: z.enum(GRID_FILE_NAMES) });
+export const gridFileQuery = z.object({
+	depthM: z
+		.string()
+		.optional()
+		.meta({ description: 'temperature-at-depth.tif: depth below the surface, m.' }),
+	temperatureC: z.string().optional().meta({ description: 'isotherm-depth.tif: °C.' })
+});
+
+// ---- attachments and imports (import shapes: $lib/schemas/imports.ts) ----------------------
+
+export const attachmentStartSchema = z
+	.object({
+		datasetId: z.uuid('datasetId must be a dataset id'),
+		siteId: z.uuid().nullish(),
+		fileName: z.string().trim().min(1, 'fileName is empty').max(255),
+		sizeBytes: z.number().int('sizeBytes must be a whole number of bytes')
+	})
+	.meta({ id: 'AttachmentStart' });
+
+export const attachmentAnnouncedSchema = z
+	.object({
+		id: z.uuid(),
+		uploadUrl: z.string().meta({ description: 'Path on this origin to PUT the bytes to.' })
+	})
+	.meta({ id: 'AttachmentAnnounced' });
+
+export const attachmentSchema = z
+	.object({
+		id: z.uuid(),
+		fileName: z.string(),
+		contentType: z.string().nullable(),
+		sizeBytes: z.number().int(),
+		sha256: z.string().nullable(),
+		hasThumbnail: z.boolean()
+	})
+	.meta({ id: 'Attachment' });
+
+export const importCommittedSchema = z
+	.object({ batchId: z.uuid(), rows: z.number().int() })
+	.meta({ id: 'ImportQueued' });

@@ -46,7 +46,11 @@ describe('503 answers', () => {
 		const api = databaseDownResponse('/api/v1/sites');
 		expect(api.status).toBe(503);
 		expect(api.headers.get('retry-after')).toBe('30');
-		expect(await api.json()).toEqual({ message: DATABASE_DOWN_MESSAGE });
+		expect(await api.json()).toEqual({
+			error: { code: 'database_unavailable', message: DATABASE_DOWN_MESSAGE, details: {} }
+		});
+		const health = databaseDownResponse('/api/health');
+		expect(await health.json()).toEqual({ message: DATABASE_DOWN_MESSAGE });
 		const page = databaseDownResponse('/datasets');
 		expect(page.headers.get('content-type')).toMatch(/^text\/plain/);
 		expect(await page.text()).toBe(DATABASE_DOWN_MESSAGE);

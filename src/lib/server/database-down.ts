@@ -1,3 +1,5 @@
+import { answersErrorBody, errorBody } from './api/error-body';
+
 /**
  * While PostgreSQL is unreachable (stopped, restarting, network gone) every request that needs it
  * fails. Those answers are 503 with Retry-After and a plain message, not a 500 "something went
@@ -56,11 +58,17 @@ export function isDatabaseUnavailable(err: unknown, underQuery = false): boolean
 	return false;
 }
 
-const RETRY_AFTER_SECONDS = '30';
+export const RETRY_AFTER_SECONDS = '30';
 
 /** The answer for a request that failed before any page or handler could answer. */
 export function databaseDownResponse(pathname: string): Response {
 	const headers = { 'retry-after': RETRY_AFTER_SECONDS, 'cache-control': 'no-store' };
+	// The machine interfaces answer with their one error body (api/error-body.ts).
+	if (answersErrorBody(pathname))
+		return Response.json(errorBody('database_unavailable', DATABASE_DOWN_MESSAGE), {
+			status: 503,
+			headers
+		});
 	return pathname.startsWith('/api/')
 		? Response.json({ message: DATABASE_DOWN_MESSAGE }, { status: 503, headers })
 		: new Response(DATABASE_DOWN_MESSAGE, {

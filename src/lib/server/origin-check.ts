@@ -1,4 +1,5 @@
 import { json } from '@sveltejs/kit';
+import { answersErrorBody, errorBody } from './api/error-body';
 
 const STATE_CHANGING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
@@ -14,11 +15,9 @@ export function crossOriginRefusal(request: Request, appOrigin: string): Respons
 	if (!request.headers.has('cookie')) return null;
 	const origin = request.headers.get('origin');
 	if (origin === null || origin === appOrigin) return null;
-	return json(
-		{
-			message:
-				'Cross-site request refused: this address only accepts changes from Thermalith’s own pages.'
-		},
-		{ status: 403 }
-	);
+	const message =
+		'Cross-site request refused: this address only accepts changes from Thermalith’s own pages.';
+	return answersErrorBody(new URL(request.url).pathname)
+		? json(errorBody('cross_site_refused', message), { status: 403 })
+		: json({ message }, { status: 403 });
 }

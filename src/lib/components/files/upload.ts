@@ -3,16 +3,13 @@
  * (on its own origin; the app checks and stores them and answers with the checked file), with
  * progress through XMLHttpRequest, since fetch has no upload progress.
  */
+import { apiErrorMessage, errorMessageOf } from '$lib/api/error-message';
+
 export interface UploadedFile {
 	id: string;
 	fileName: string;
 	contentType: string | null;
 	hasThumbnail: boolean;
-}
-
-async function messageOf(res: Response): Promise<string> {
-	const body = await res.json().catch(() => null);
-	return body?.message ?? `${res.status} ${res.statusText}`;
 }
 
 export async function uploadAttachment(
@@ -25,7 +22,7 @@ export async function uploadAttachment(
 		headers: { 'content-type': 'application/json' },
 		body: JSON.stringify({ ...target, fileName: file.name, sizeBytes: file.size })
 	});
-	if (!start.ok) throw new Error(await messageOf(start));
+	if (!start.ok) throw new Error(await apiErrorMessage(start));
 	const { uploadUrl } = (await start.json()) as { uploadUrl: string };
 
 	const body = await new Promise<string>((resolve, reject) => {
@@ -37,13 +34,13 @@ export async function uploadAttachment(
 		xhr.upload.onload = () => onProgress(1);
 		xhr.onload = () => {
 			if (xhr.status >= 200 && xhr.status < 300) return resolve(xhr.responseText);
-			let message = `${xhr.status} ${xhr.statusText}`;
+			let body: unknown = null;
 			try {
-				message = JSON.parse(xhr.responseText).message ?? message;
+				body = JSON.parse(xhr.responseText);
 			} catch {
-				// not JSON: keep the status line
+				// not JSON: the status line below
 			}
-			reject(new Error(message));
+			reject(new Error(errorMessageOf(body, `${xhr.status} ${xhr.statusText}`)));
 		};
 		xhr.onerror = () => reject(new Error('the server could not be reached'));
 		xhr.send(file);

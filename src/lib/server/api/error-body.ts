@@ -27,5 +27,11 @@ export const CODE_BY_STATUS: Record<number, string> = {
 	415: 'unsupported_media_type',
 	422: 'unprocessable',
 	429: 'rate_limited',
-	500: 'internal_error'
+	500: 'internal_error',
+	503: 'service_unavailable'
 };
+
+/** Addresses that answer with the one error body (others keep `{ message }` or a page). */
+export function answersErrorBody(pathname: string): boolean {
+	return ['/api/v1', '/ogc'].some((base) => pathname === base || pathname.startsWith(`${base}/`));
+}

@@ -7,6 +7,11 @@ import { USER_RATE_RULES, type UserRateRule } from '../auth/rate-rules';
 import { clientAddress } from '../auth/client-address';
 import type { Db } from '../db/client';
 import { countAttempt, userRateKey } from '../rate-limit';
+import {
+	DATABASE_DOWN_MESSAGE,
+	isDatabaseUnavailable,
+	RETRY_AFTER_SECONDS
+} from '../database-down';
 import { CODE_BY_STATUS } from './error-body';
 
 /*
@@ -56,6 +61,17 @@ export function apiHandler<E extends RequestEvent>(handle: (event: E) => Promise
 					message: err.message,
 					details: { field: err.field }
 				});
+			if (isDatabaseUnavailable(err)) {
+				// Temporary and not the caller's fault: 503 with Retry-After (database-down.ts).
+				console.error(`database unreachable: ${event.request.method} ${event.url.pathname}`);
+				const response = errorResponse({
+					status: 503,
+					code: 'database_unavailable',
+					message: DATABASE_DOWN_MESSAGE
+				});
+				response.headers.set('retry-after', RETRY_AFTER_SECONDS);
+				return response;
+			}
 			throw err;
 		}
 	};

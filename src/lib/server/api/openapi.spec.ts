@@ -15,16 +15,34 @@ describe('the generated OpenAPI document', () => {
 		expect(validator.version).toBe('3.1');
 	});
 
-	it('describes every /api/v1 route this change serves, with the one error body', () => {
+	it('describes every /api/v1 route, with the one error body', () => {
 		const doc = openApiDocument();
 		expect(Object.keys(doc.paths ?? {}).sort()).toEqual(
 			[
+				'/attachments',
+				'/attachments/{id}',
+				'/attachments/{id}/content',
+				'/attachments/{id}/download',
+				'/attachments/{id}/thumbnail',
 				'/compute/geotherm',
 				'/compute/heat-flow',
 				'/datasets',
 				'/datasets/{id}',
+				'/datasets/{id}/imports',
+				'/grids',
+				'/grids/{id}',
+				'/grids/{id}/{file}',
+				'/imports/{id}',
+				'/imports/{id}/commit',
+				'/imports/{id}/preview',
+				'/map',
+				'/map/count',
+				'/map/region',
+				'/map/search',
+				'/openapi.json',
 				'/organisations',
 				'/sites',
+				'/sites.geojson',
 				'/sites/{id}',
 				'/sites/{id}/temperature-logs'
 			].sort()

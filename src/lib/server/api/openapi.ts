@@ -1,11 +1,42 @@
 import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject } from 'zod-openapi';
+import { gridRequestSchema } from '$lib/grids/request';
+import { regionStatisticsRequestSchema } from '$lib/grids/region-stats';
 import {
+	batchStatusSchema,
+	commitRequestSchema,
+	previewRequestSchema,
+	previewResponseSchema,
+	startImportSchema,
+	uploadedTableSchema
+} from '$lib/schemas/imports';
+import {
+	attachmentAnnouncedSchema,
+	attachmentSchema,
+	attachmentStartSchema,
 	datasetPageSchema,
 	datasetSchema,
 	datasetsQuery,
 	errorSchema,
 	geothermRequestSchema,
+	gridAcceptedSchema,
+	gridFilePath,
+	gridFileQuery,
+	gridStatusSchema,
+	importCommittedSchema,
+	mapCountQuerySchema,
+	mapCountSchema,
+	mapDataSchema,
+	mapFeatureCollectionSchema,
+	mapQuerySchema,
+	mapRegionQuerySchema,
+	mapRegionShapeQuerySchema,
+	polygonBodySchema,
+	gridRegionStatisticsSchema,
+	mapSearchQuerySchema,
+	regionStatisticsSchema,
+	siteSearchSchema,
+	sitesGeoJsonQuerySchema,
 	geothermResponseSchema,
 	heatFlowRequestSchema,
 	heatFlowResponseSchema,
@@ -31,13 +62,19 @@ const error = (description: string) => ({
 	content: { 'application/json': { schema: errorSchema } }
 });
 
+const retryAfter = {
+	'Retry-After': { description: 'Seconds to wait.', schema: { type: 'integer' as const } }
+};
+
 const COMMON_ERRORS = {
 	'401': error('The API key is unknown, revoked or expired.'),
+	'503': {
+		...error('The database or the file store is not reachable; nothing was changed.'),
+		headers: retryAfter
+	},
 	'429': {
 		...error('Too many requests with this key.'),
-		headers: {
-			'Retry-After': { description: 'Seconds to wait.', schema: { type: 'integer' as const } }
-		}
+		headers: retryAfter
 	}
 };
 
@@ -93,6 +130,74 @@ function compute(
 
 const idPath = z.object({ id: z.uuid() });
 const notFound = { '404': error('Unknown, or not visible to the caller (the same answer).') };
+
+/** Routes of the app's own pages that change data: a session cookie (or a write key) is needed. */
+const SIGNED_IN = {
+	'401': error('Sign in first, or the API key is unknown, revoked or expired.'),
+	'403': error('The caller may not do this here (or the key is read-only).')
+};
+
+const json = (schema: z.ZodType) => ({ 'application/json': { schema } });
+const BINARY = { schema: { type: 'string' as const, format: 'binary' } };
+
+/** The map's answers: private to the viewer, with an ETag and 304 (server/private-json.ts). */
+function mapRead(
+	summary: string,
+	query: z.ZodObject,
+	schema: z.ZodType,
+	media = 'application/json'
+): ZodOpenApiOperationObject {
+	return {
+		summary,
+		tags: ['map'],
+		requestParams: { query },
+		responses: {
+			'200': { description: 'OK', headers: etagHeader, content: { [media]: { schema } } },
+			'304': notModified,
+			'400': error('A missing or malformed bbox, zoom or filter (named in the message).'),
+			...COMMON_ERRORS
+		}
+	};
+}
+
+/** A change with a JSON body, answered with JSON. */
+function change(
+	summary: string,
+	tags: string[],
+	request: z.ZodType | null,
+	status: string,
+	response: z.ZodType,
+	extra: Record<string, unknown> = {}
+): ZodOpenApiOperationObject {
+	return {
+		summary,
+		tags,
+		...(request ? { requestBody: { required: true, content: json(request) } } : {}),
+		responses: {
+			[status]: { description: 'Done', content: json(response) },
+			'400': error('Invalid JSON or fields outside their ranges.'),
+			...SIGNED_IN,
+			...notFound,
+			'429': COMMON_ERRORS['429'],
+			'503': COMMON_ERRORS['503'],
+			...extra
+		}
+	};
+}
+
+/** A file: its bytes with the type sniffed when it was stored. */
+function download(summary: string, tags: string[]): ZodOpenApiOperationObject {
+	return {
+		summary,
+		tags,
+		requestParams: { path: idPath },
+		responses: {
+			'200': { description: 'The bytes', content: { '*/*': BINARY } },
+			...notFound,
+			...COMMON_ERRORS
+		}
+	};
+}
 
 let cached: ReturnType<typeof createDocument> | undefined;
 
@@ -173,6 +278,300 @@ export function openApiDocument() {
 						responses: notFound
 					}
 				)
+			},
+			'/sites.geojson': {
+				get: {
+					summary: 'Every visible site in a box, as the map reads them (not paged)',
+					tags: ['map'],
+					requestParams: { query: sitesGeoJsonQuerySchema },
+					responses: {
+						'200': {
+							description: 'OK',
+							content: { 'application/geo+json': { schema: mapFeatureCollectionSchema } }
+						},
+						'400': error('A missing or malformed bbox.'),
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/map': {
+				get: mapRead('One map view: aggregate cells or single sites', mapQuerySchema, mapDataSchema)
+			},
+			'/map/count': {
+				get: mapRead(
+					'How many visible sites match the filters',
+					mapCountQuerySchema,
+					mapCountSchema
+				)
+			},
+			'/map/region': {
+				get: mapRead(
+					'Heat-flow statistics of the visible sites in a rectangle or polygon',
+					mapRegionShapeQuerySchema,
+					regionStatisticsSchema
+				),
+				post: {
+					summary: 'Heat-flow statistics of the visible sites in a drawn polygon',
+					tags: ['map'],
+					requestParams: { query: mapRegionShapeQuerySchema.omit({ bbox: true, polygon: true }) },
+					requestBody: { required: true, content: json(polygonBodySchema) },
+					responses: {
+						'200': { description: 'OK', content: json(regionStatisticsSchema) },
+						'400': error('Not a polygon, too many corners, no area, or bad filters.'),
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/map/region/sites.csv': {
+				get: {
+					summary:
+						'The visible sites of a region as CSV, with a citation block per dataset (logged)',
+					tags: ['map'],
+					requestParams: { query: mapRegionShapeQuerySchema },
+					responses: {
+						'200': { description: 'CSV', content: { 'text/csv': { schema: { type: 'string' } } } },
+						'400': error('A bad region or filters, or more sites than one file holds.'),
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/map/region/sites.geojson': {
+				get: {
+					summary:
+						'The visible sites of a region as GeoJSON, citations in metadata.datasets (logged)',
+					tags: ['map'],
+					requestParams: { query: mapRegionShapeQuerySchema },
+					responses: {
+						'200': {
+							description: 'GeoJSON',
+							content: {
+								'application/geo+json': {
+									schema: {
+										type: 'object',
+										description: 'RFC 7946 FeatureCollection with metadata.'
+									}
+								}
+							}
+						},
+						'400': error('A bad region or filters, or more sites than one file holds.'),
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/map/search': {
+				get: mapRead(
+					'Visible sites whose code or name starts with q (at most 10)',
+					mapSearchQuerySchema,
+					siteSearchSchema
+				)
+			},
+			'/grids': {
+				post: {
+					summary: 'Request a heat-flow grid of the visible sites (kriging or IDW)',
+					tags: ['grids'],
+					requestBody: { required: true, content: json(gridRequestSchema) },
+					responses: {
+						'202': {
+							description: 'Queued, or the same grid already made or in progress',
+							headers: {
+								Location: { description: 'The status address.', schema: { type: 'string' } }
+							},
+							content: json(gridAcceptedSchema)
+						},
+						'400': error('Not JSON, not a grid request, or too few visible sites.'),
+						'403': error('The API key may only read.'),
+						...COMMON_ERRORS,
+						'429': {
+							...error('Too many new grids (per caller) or requests with this key.'),
+							headers: COMMON_ERRORS['429'].headers
+						}
+					}
+				}
+			},
+			'/grids/{id}': {
+				get: {
+					summary: 'Status of a grid, then its model, cross-validation and download links',
+					tags: ['grids'],
+					requestParams: { path: idPath },
+					responses: {
+						'200': { description: 'OK', content: json(gridStatusSchema) },
+						...notFound,
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/grids/{id}/statistics': {
+				get: {
+					summary: 'Area-weighted statistics of a finished grid inside a rectangle',
+					tags: ['grids'],
+					requestParams: {
+						path: idPath,
+						query: z.object({
+							bbox: z.string().meta({ description: 'west,south,east,north in degrees' }),
+							temperatureC: z.string().optional().meta({ description: 'Isotherm, default 150.' })
+						})
+					},
+					responses: {
+						'200': { description: 'OK', content: json(gridRegionStatisticsSchema) },
+						'400': error('A bad region or temperature.'),
+						...notFound,
+						...COMMON_ERRORS
+					}
+				},
+				post: {
+					summary: 'Area-weighted statistics of a finished grid inside a rectangle or polygon',
+					tags: ['grids'],
+					requestParams: { path: idPath },
+					requestBody: { required: true, content: json(regionStatisticsRequestSchema) },
+					responses: {
+						'200': { description: 'OK', content: json(gridRegionStatisticsSchema) },
+						'400': error('Not JSON, or a bad region or temperature.'),
+						...notFound,
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/grids/{id}/{file}': {
+				get: {
+					summary: 'A file of a finished grid (GeoTIFF, CSV, GeoJSON contours, PNG)',
+					tags: ['grids'],
+					requestParams: { path: gridFilePath, query: gridFileQuery },
+					responses: {
+						'200': {
+							description: 'The file',
+							content: {
+								'image/tiff': BINARY,
+								'image/png': BINARY,
+								'text/csv': { schema: { type: 'string' } },
+								'application/geo+json': {
+									schema: { type: 'object', description: 'RFC 7946 contour lines.' }
+								}
+							}
+						},
+						'400': error('A bad depthM or temperatureC.'),
+						'404': error('Unknown grid or file name, not visible, or not finished.'),
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/attachments': {
+				post: change(
+					'Announce a file of a dataset (or one of its sites); PUT its bytes next',
+					['files'],
+					attachmentStartSchema,
+					'201',
+					attachmentAnnouncedSchema,
+					{ '413': error('The file is over the size limit.') }
+				)
+			},
+			'/attachments/{id}': {
+				delete: {
+					summary: 'Delete a file',
+					tags: ['files'],
+					requestParams: { path: idPath },
+					responses: {
+						'204': { description: 'Deleted' },
+						...SIGNED_IN,
+						...notFound,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
+					}
+				}
+			},
+			'/attachments/{id}/content': {
+				put: {
+					summary: 'The bytes of an announced file (checked, then stored; once only)',
+					tags: ['files'],
+					requestParams: { path: idPath },
+					requestBody: { required: true, content: { 'application/octet-stream': BINARY } },
+					responses: {
+						'200': { description: 'Stored and checked', content: json(attachmentSchema) },
+						'400': error('The bytes differ from the announced size, or are refused.'),
+						...SIGNED_IN,
+						...notFound,
+						'409': error('The file is stored already and cannot be replaced.'),
+						'413': error('The file is over the size limit.'),
+						'415': error('A type that is not accepted (an executable).'),
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
+					}
+				}
+			},
+			'/attachments/{id}/download': {
+				get: download('A file, after the same access check as its dataset', ['files']),
+				head: download('The headers of a file', ['files'])
+			},
+			'/attachments/{id}/thumbnail': {
+				get: download('The thumbnail of an image file', ['files']),
+				head: download('The headers of a thumbnail', ['files'])
+			},
+			'/datasets/{id}/imports': {
+				post: {
+					...change(
+						'Start an import from an uploaded file: its columns and a suggested mapping',
+						['imports'],
+						startImportSchema,
+						'201',
+						uploadedTableSchema
+					),
+					requestParams: { path: idPath }
+				}
+			},
+			'/imports/{id}': {
+				get: {
+					summary: 'Progress and final state of an import',
+					tags: ['imports'],
+					requestParams: { path: idPath },
+					responses: {
+						'200': { description: 'OK', content: json(batchStatusSchema) },
+						...SIGNED_IN,
+						...notFound,
+						...COMMON_ERRORS
+					}
+				}
+			},
+			'/imports/{id}/preview': {
+				post: {
+					...change(
+						'Check a draft import with a mapping, settings and fixes (writes no sites)',
+						['imports'],
+						previewRequestSchema,
+						'200',
+						previewResponseSchema,
+						{ '409': error('The import is not a draft any more.') }
+					),
+					requestParams: { path: idPath }
+				}
+			},
+			'/imports/{id}/commit': {
+				post: {
+					...change(
+						'Import the previewed rows (all or none, queued); follow /imports/{id}',
+						['imports'],
+						commitRequestSchema,
+						'202',
+						importCommittedSchema,
+						{ '409': error('Stale revision, blocked rows, or the file was imported before.') }
+					),
+					requestParams: { path: idPath }
+				}
+			},
+			'/openapi.json': {
+				get: {
+					summary: 'This document',
+					tags: ['meta'],
+					responses: {
+						'200': {
+							description: 'OpenAPI 3.1',
+							headers: etagHeader,
+							content: json(
+								z.record(z.string(), z.unknown()).meta({ description: 'OpenAPI 3.1 document.' })
+							)
+						},
+						'304': notModified,
+						...COMMON_ERRORS
+					}
+				}
 			},
 			'/compute/geotherm': {
 				post: compute(

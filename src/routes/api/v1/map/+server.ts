@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { error } from '@sveltejs/kit';
 import { parseZoom } from '$lib/map/grid';
 import { getDb } from '$lib/server/db';
@@ -11,9 +12,9 @@ import type { RequestHandler } from './$types';
  * heat-flow statistics of the visible sites) at low zoom, single sites at high zoom; see
  * DEVELOPERS.md "The map at scale".
  */
-export const GET: RequestHandler = async ({ url, locals, request }) => {
+export const GET: RequestHandler = apiHandler(async ({ url, locals, request }) => {
 	const zoom = parseZoom(url.searchParams.get('zoom'));
 	if (!zoom.ok) error(400, zoom.error);
 	const { box, filters } = mapQuery(url.searchParams);
 	return privateJson(request, await mapData(getDb(), locals.viewer, box, zoom.value, filters));
-};
+});

@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { error } from '@sveltejs/kit';
 import { parseBBox } from '$lib/geo/bbox';
 import { parseSiteFilters } from '$lib/sites/filters';
@@ -9,7 +10,7 @@ import type { RequestHandler } from './$types';
  * The sites the caller may see in `bbox` (west,south,east,north, WGS 84) as a GeoJSON
  * FeatureCollection, optionally filtered by quality, method and heat-flow range.
  */
-export const GET: RequestHandler = async ({ url, locals }) => {
+export const GET: RequestHandler = apiHandler(async ({ url, locals }) => {
 	const bbox = parseBBox(url.searchParams.get('bbox'));
 	if (!bbox.ok) error(400, bbox.error);
 	const sites = await visibleSitesInBox(
@@ -35,4 +36,4 @@ export const GET: RequestHandler = async ({ url, locals }) => {
 			vary: 'cookie'
 		}
 	});
-};
+});

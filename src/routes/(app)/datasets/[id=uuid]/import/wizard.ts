@@ -9,6 +9,7 @@ import {
 	type UploadedTable
 } from '$lib/schemas/imports';
 import type { z } from 'zod';
+import { apiErrorMessage } from '$lib/api/error-message';
 
 async function send<S extends z.ZodType>(
 	method: string,
@@ -21,9 +22,8 @@ async function send<S extends z.ZodType>(
 		headers: { 'content-type': 'application/json' },
 		body: body === undefined ? undefined : JSON.stringify(body)
 	});
-	const data = await res.json().catch(() => ({ message: `${res.status} ${res.statusText}` }));
-	if (!res.ok)
-		throw Object.assign(new Error(data.message ?? 'request failed'), { status: res.status });
+	if (!res.ok) throw Object.assign(new Error(await apiErrorMessage(res)), { status: res.status });
+	const data = await res.json();
 	return schema ? schema.parse(data) : data;
 }
 
@@ -38,10 +38,7 @@ export async function uploadForImport(datasetId: string, file: File): Promise<Up
 		sizeBytes: file.size
 	})) as { id: string; uploadUrl: string };
 	const put = await fetch(announced.uploadUrl, { method: 'PUT', body: file });
-	if (!put.ok) {
-		const data = await put.json().catch(() => ({ message: `${put.status} ${put.statusText}` }));
-		throw new Error(data.message ?? 'the upload failed');
-	}
+	if (!put.ok) throw new Error(await apiErrorMessage(put));
 	return send(
 		'POST',
 		`/api/v1/datasets/${datasetId}/imports`,
@@ -63,6 +60,7 @@ export async function followImport(
 ): Promise<BatchStatus> {
 	for (;;) {
 		const res = await fetch(`/api/v1/imports/${batchId}`);
+		if (!res.ok) throw new Error(await apiErrorMessage(res));
 		const status = batchStatusSchema.parse(await res.json());
 		onProgress(status);
 		if (status.status === 'done' || status.status === 'failed') return status;

@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { json } from '@sveltejs/kit';
 import { getDb } from '$lib/server/db';
 import { requireUser } from '$lib/server/guards';
@@ -5,8 +6,8 @@ import { importForViewer } from '$lib/server/repositories/datasets';
 import type { RequestHandler } from './$types';
 
 /** Progress of an import: rows written so far, and its final state. */
-export const GET: RequestHandler = async (event) => {
+export const GET: RequestHandler = apiHandler(async (event) => {
 	requireUser(event, 'action');
 	const batch = await importForViewer(getDb(), event.locals.viewer, event.params.id);
 	return json(batch, { headers: { 'cache-control': 'no-store' } });
-};
+});

@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { getDb } from '$lib/server/db';
 import { privateJson } from '$lib/server/private-json';
 import { polygonBodyQuery, regionQuery } from '$lib/server/region-query';
@@ -10,12 +11,12 @@ import type { RequestHandler } from './$types';
  * polygon, limits in `$lib/map/region-shape.ts`). The sites themselves with their citations are
  * `region/sites.csv` and `region/sites.geojson`.
  */
-export const GET: RequestHandler = async ({ url, locals, request }) => {
+export const GET: RequestHandler = apiHandler(async ({ url, locals, request }) => {
 	const { region, filters } = regionQuery(url.searchParams);
 	return privateJson(request, await regionStatistics(getDb(), locals.viewer, region, filters));
-};
+});
 
-export const POST: RequestHandler = async ({ url, locals, request }) => {
+export const POST: RequestHandler = apiHandler(async ({ url, locals, request }) => {
 	const { region, filters } = await polygonBodyQuery(request, url.searchParams);
 	return privateJson(request, await regionStatistics(getDb(), locals.viewer, region, filters), 0);
-};
+});

@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { json } from '@sveltejs/kit';
 import { receiveAttachmentContent } from '$lib/server/attachments';
 import { getDb } from '$lib/server/db';
@@ -9,7 +10,7 @@ import type { RequestHandler } from './$types';
  * type sniffed from the bytes, SHA-256, thumbnail) and stored in one step. Refused once the file
  * is ready, so a checked file can never be swapped.
  */
-export const PUT: RequestHandler = async (event) => {
+export const PUT: RequestHandler = apiHandler(async (event) => {
 	requireUser(event, 'action');
 	const row = await receiveAttachmentContent(
 		getDb(),
@@ -25,4 +26,4 @@ export const PUT: RequestHandler = async (event) => {
 		sha256: row.sha256,
 		hasThumbnail: Boolean(row.thumbnailKey)
 	});
-};
+});

@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { json } from '@sveltejs/kit';
 import { getDb } from '$lib/server/db';
 import { parseBody, requireUser } from '$lib/server/guards';
@@ -10,7 +11,7 @@ import type { RequestHandler } from './$types';
  * content): the server parses it and answers with its columns and a suggested mapping. Nothing
  * is written to the dataset's sites until the batch is committed.
  */
-export const POST: RequestHandler = async (event) => {
+export const POST: RequestHandler = apiHandler(async (event) => {
 	requireUser(event, 'action');
 	// The right first, so a hidden dataset is a 404 whatever the body.
 	await requireUploadRight(getDb(), event.locals.viewer, event.params.id);
@@ -18,4 +19,4 @@ export const POST: RequestHandler = async (event) => {
 	return json(await startImport(getDb(), event.locals.viewer, event.params.id, body.attachmentId), {
 		status: 201
 	});
-};
+});

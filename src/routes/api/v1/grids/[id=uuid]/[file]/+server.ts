@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { getDb } from '$lib/server/db';
 import { gridFile } from '$lib/server/grids/service';
 import type { RequestHandler } from './$types';
@@ -6,7 +7,7 @@ import type { RequestHandler } from './$types';
  * A download of a finished grid: heat-flow.tif, sigma.tif, grid.csv, contours.geojson,
  * heat-flow.png, sigma.png, temperature-at-depth.tif?depthM=, isotherm-depth.tif?temperatureC=.
  */
-export const GET: RequestHandler = async (event) => {
+export const GET: RequestHandler = apiHandler(async (event) => {
 	const file = await gridFile(
 		getDb(),
 		event.locals.viewer,
@@ -23,4 +24,4 @@ export const GET: RequestHandler = async (event) => {
 			'cache-control': 'private, no-store'
 		}
 	});
-};
+});

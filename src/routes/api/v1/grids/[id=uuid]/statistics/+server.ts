@@ -1,4 +1,5 @@
-import { json } from '@sveltejs/kit';
+import { error, json } from '@sveltejs/kit';
+import { apiHandler } from '$lib/server/api/http';
 import { getDb } from '$lib/server/db';
 import { gridRegionStatisticsFor } from '$lib/server/grids/service';
 import type { RequestHandler } from './$types';
@@ -13,17 +14,17 @@ const answer = async (event: Parameters<RequestHandler>[0], body: unknown) =>
 		headers: { 'cache-control': 'private, no-store' }
 	});
 
-export const POST: RequestHandler = async (event) => {
+export const POST: RequestHandler = apiHandler(async (event) => {
 	let body: unknown;
 	try {
 		body = await event.request.json();
 	} catch {
-		return json({ message: 'Bad region: the body must be JSON.' }, { status: 400 });
+		error(400, 'Bad region: the body must be JSON.');
 	}
 	return answer(event, body);
-};
+});
 
-export const GET: RequestHandler = async (event) => {
+export const GET: RequestHandler = apiHandler(async (event) => {
 	const q = event.url.searchParams;
 	const bbox = q.get('bbox');
 	const t = q.get('temperatureC');
@@ -32,4 +33,4 @@ export const GET: RequestHandler = async (event) => {
 	if (bbox !== null) body.bbox = bbox.split(',').map((v) => (v.trim() === '' ? NaN : Number(v)));
 	if (t !== null && t !== '') body.temperatureC = Number(t);
 	return answer(event, body);
-};
+});

@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { json } from '@sveltejs/kit';
 import { config } from '$lib/server/config';
 import { getDb } from '$lib/server/db';
@@ -9,7 +10,7 @@ import { commitRequestSchema } from '$lib/schemas/imports';
 import type { RequestHandler } from './$types';
 
 /** Import the previewed rows of a draft (all or none, on the job queue); poll /api/v1/imports/{id}. */
-export const POST: RequestHandler = async (event) => {
+export const POST: RequestHandler = apiHandler(async (event) => {
 	requireUser(event, 'action');
 	const batch = await batchForChange(getDb(), event.locals.viewer, event.params.id);
 	const body = await parseBody(event, commitRequestSchema);
@@ -17,4 +18,4 @@ export const POST: RequestHandler = async (event) => {
 		enqueueImport(await jobs(config().DATABASE_URL), id)
 	);
 	return json(started, { status: 202 });
-};
+});

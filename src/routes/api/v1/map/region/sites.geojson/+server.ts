@@ -1,3 +1,4 @@
+import { apiHandler } from '$lib/server/api/http';
 import { getDb } from '$lib/server/db';
 import { regionQuery } from '$lib/server/region-query';
 import { regionDownload } from '$lib/server/repositories/region-download';
@@ -7,8 +8,8 @@ import type { RequestHandler } from './$types';
  * The visible sites of a map region (`bbox` or `polygon`) matching the map's filters as
  * GeoJSON, with the citation and licence of every dataset they come from (region-download.ts).
  */
-export const GET: RequestHandler = async ({ url, locals }) => {
+export const GET: RequestHandler = apiHandler(async ({ url, locals }) => {
 	const { region, filters } = regionQuery(url.searchParams);
 	const d = await regionDownload(getDb(), locals.viewer, region, filters, 'geojson', url.origin);
 	return new Response(d.body, { headers: d.headers });
-};
+});
