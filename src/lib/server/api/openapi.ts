@@ -29,7 +29,6 @@ import {
 	mapDataSchema,
 	mapFeatureCollectionSchema,
 	mapQuerySchema,
-	mapRegionQuerySchema,
 	mapRegionShapeQuerySchema,
 	polygonBodySchema,
 	gridRegionStatisticsSchema,
