@@ -395,11 +395,14 @@ export const mapCellSchema = z
 		iy: z.number().int(),
 		count: z.number().int(),
 		meanMWm2: statistic,
-		medianMWm2: statistic,
 		minMWm2: statistic,
 		maxMWm2: statistic
 	})
-	.meta({ id: 'MapCell', description: 'A square of the Web Mercator grid at this zoom.' });
+	.meta({
+		id: 'MapCell',
+		description:
+			'A square of the Web Mercator grid at this zoom: count, mean, minimum and maximum heat flow (no median: see the region statistics).'
+	});
 
 export const mapDataSchema = z
 	.discriminatedUnion('kind', [
