@@ -18,6 +18,7 @@ import { workGridQueue } from '$lib/server/jobs/grid-queue';
 import { startEmbargoRelease } from '$lib/server/jobs/embargo-release';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
 import { startImportWorker } from '$lib/server/jobs/import-queue';
+import { startWorkers } from '$lib/server/jobs/start-workers';
 import { closeMailer, sendMail, startMailWorker } from '$lib/server/mail';
 import { runtimeCspSources } from '$lib/server/csp-sources';
 import { nulRefusal } from '$lib/server/nul-guard';
@@ -37,21 +38,19 @@ export const init: ServerInit = async () => {
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
 	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
-		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports) are taken by this process; a queue that is not reachable yet is retried
-		// by pg-boss once it is, and must not keep the app from starting.
-		startMailWorker()
-			.then(async () => startHousekeeping(await jobs(config().DATABASE_URL), getDb()))
-			.then(async () => workGridQueue(await jobs(config().DATABASE_URL), getDb()))
-			.then(async () =>
-				startEmbargoRelease(
-					await jobs(config().DATABASE_URL),
-					getDb(),
-					sendMail,
-					config().ORIGIN ?? 'http://127.0.0.1:3000'
-				)
-			)
-			.then(async () => startImportWorker(await jobs(config().DATABASE_URL), getDb()))
-			.catch((err) => console.warn('job workers not started:', err.message));
+		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports) are taken by
+		// this process. Each worker starts on its own (one failing start keeps none of the others
+		// back) and a failure is logged by name; a queue that is not reachable yet is retried by
+		// pg-boss once it is, and must not keep the app from starting.
+		const boss = () => jobs(config().DATABASE_URL);
+		const origin = config().ORIGIN ?? 'http://127.0.0.1:3000';
+		void startWorkers({
+			mail: () => startMailWorker(),
+			housekeeping: async () => startHousekeeping(await boss(), getDb()),
+			grids: async () => workGridQueue(await boss(), getDb()),
+			'embargo release': async () => startEmbargoRelease(await boss(), getDb(), sendMail, origin),
+			imports: async () => startImportWorker(await boss(), getDb())
+		});
 	}
 	// adapter-node exits once the event loop is empty; open pools would keep it alive after SIGTERM.
 	process.once('sveltekit:shutdown', () => {
