@@ -12,7 +12,6 @@ import {
 	databaseDownResponse,
 	isDatabaseUnavailable
 } from '$lib/server/database-down';
-import { failStaleImports } from '$lib/server/imports/stale';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
 import { workGridQueue } from '$lib/server/jobs/grid-queue';
 import { startEmbargoRelease } from '$lib/server/jobs/embargo-release';
@@ -31,17 +30,12 @@ import { apiPreflight, isApiPath, withApiCors } from '$lib/server/api/cors';
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {
 	config();
-	if (!building) {
-		// Housekeeping only: a database that is not up yet must not keep the app from starting.
-		await failStaleImports(getDb())
-			.then((stale) => stale && console.warn(`${stale} interrupted import(s) marked as failed`))
-			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
-	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
-		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports) are taken by
-		// this process. Each worker starts on its own (one failing start keeps none of the others
-		// back) and a failure is logged by name; a queue that is not reachable yet is retried by
-		// pg-boss once it is, and must not keep the app from starting.
+		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports; the import
+		// worker first resumes or ends imports left running) are taken by this process. Each worker
+		// starts on its own (one failing start keeps none of the others back) and a failure is
+		// logged by name; a queue that is not reachable yet is retried by pg-boss once it is, and
+		// must not keep the app from starting.
 		const boss = () => jobs(config().DATABASE_URL);
 		const origin = config().ORIGIN ?? 'http://127.0.0.1:3000';
 		void startWorkers({

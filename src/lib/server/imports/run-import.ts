@@ -4,11 +4,14 @@ import type { Db } from '../db/client';
 import { dataset, importBatch } from '../db/schema';
 import { recordAudit } from '../repositories/audit';
 import { INSERT_CHUNK_ROWS, insertSiteChunk } from './bulk-insert';
+import {
+	IMPORT_HEARTBEAT_STALE_S,
+	IMPORT_MAX_ATTEMPTS,
+	interruptedImportAction,
+	lastSignOfLife
+} from './interrupted';
 
-/** A running import whose heartbeat is older than this lost its worker (killed, crashed). */
-export const IMPORT_HEARTBEAT_STALE_S = 60;
-/** A batch taken this many times without finishing is failed instead of tried again. */
-export const IMPORT_MAX_ATTEMPTS = 3;
+export { IMPORT_HEARTBEAT_STALE_S, IMPORT_MAX_ATTEMPTS };
 
 export interface RunOptions {
 	staleAfterS?: number;
@@ -25,7 +28,7 @@ export type RunOutcome = 'done' | 'failed' | 'skipped';
  *
  * A batch is taken only when it is queued, or running with a stale heartbeat (its worker died:
  * PostgreSQL rolled its transaction back when the connection closed), so a job delivered twice
- * writes once. A failure rolls everything back and is recorded on the batch with a clear message.
+ * writes once; a batch out of tries (`interruptedImportAction`) ends failed. A failure rolls everything back and is recorded on the batch with a clear message.
  */
 export async function runImportBatch(
 	db: Db,
@@ -44,7 +47,7 @@ export async function runImportBatch(
 		.where(
 			and(
 				eq(importBatch.id, batchId),
-				sql`(${importBatch.status} = 'queued' OR (${importBatch.status} = 'running' AND ${importBatch.heartbeatAt} < now() - make_interval(secs => ${staleAfterS})))`
+				sql`(${importBatch.status} = 'queued' OR (${importBatch.status} = 'running' AND ${lastSignOfLife} < now() - make_interval(secs => ${staleAfterS})))`
 			)
 		)
 		.returning({
@@ -62,10 +65,10 @@ export async function runImportBatch(
 			.where(eq(importBatch.id, batchId));
 		return 'failed' as const;
 	};
-	if (taken.attempts > IMPORT_MAX_ATTEMPTS)
-		return fail(
-			`The import was interrupted ${IMPORT_MAX_ATTEMPTS} times and has stopped; nothing was written. Import the file again.`
-		);
+	// Taken while queued or stale: the rule for interrupted imports says whether tries remain
+	// (counting the takes before this one).
+	const action = interruptedImportAction({ attempts: taken.attempts - 1, staleInS: 0 });
+	if (action.kind === 'fail') return fail(action.message);
 	const rows = (taken.sites ?? []) as SiteDraft[];
 	try {
 		await db.transaction(async (tx) => {

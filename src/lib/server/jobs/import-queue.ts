@@ -1,8 +1,7 @@
 import type PgBoss from 'pg-boss';
-import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { importBatch } from '../db/schema';
-import { IMPORT_HEARTBEAT_STALE_S, runImportBatch, type RunOptions } from '../imports/run-import';
+import { recoverInterruptedImports, type Recovered } from '../imports/interrupted';
+import { runImportBatch, type RunOptions } from '../imports/run-import';
 import { QUEUES } from './queues';
 
 export interface ImportJob {
@@ -38,34 +37,28 @@ export function workImportQueue(
 }
 
 /**
- * At start: imports left running by a process that stopped (a restart, a crash) are queued again
- * for when their heartbeat has gone stale, so they resume from scratch (their transaction was
- * rolled back) instead of waiting for the job's expiry; each try counts towards the limit, after
- * which the batch ends failed with a message. Returns how many were queued.
+ * At start: imports left running by a process that stopped (a restart, a crash) are resumed
+ * (queued again, at once or for when their heartbeat is stale, to run from scratch: their
+ * transaction was rolled back) while tries remain, else ended failed with a message; the rule is
+ * `interruptedImportAction`. pg-boss's own retry after the job's expiry is the second net.
  */
-export async function resumeInterruptedImports(
+export function resumeInterruptedImports(
 	boss: PgBoss,
 	db: Db,
-	options: { queue?: string; staleAfterS?: number } = {}
-): Promise<number> {
-	const staleAfterS = options.staleAfterS ?? IMPORT_HEARTBEAT_STALE_S;
-	const running = await db
-		.select({
-			id: importBatch.id,
-			waitS: sql<number>`greatest(0, ${staleAfterS} - extract(epoch from now() - coalesce(${importBatch.heartbeatAt}, ${importBatch.createdAt})))::float8`
-		})
-		.from(importBatch)
-		.where(and(eq(importBatch.status, 'running')));
-	for (const r of running)
-		await boss.send(options.queue ?? QUEUES.import.name, { batchId: r.id } satisfies ImportJob, {
-			startAfter: Math.ceil(r.waitS) + 1
-		});
-	return running.length;
+	options: { queue?: string; staleAfterS?: number; batchIds?: string[] } = {}
+): Promise<Recovered> {
+	const queue = options.queue ?? QUEUES.import.name;
+	return recoverInterruptedImports(
+		db,
+		(batchId, startAfter) => boss.send(queue, { batchId } satisfies ImportJob, { startAfter }),
+		options
+	);
 }
 
-/** Resume interrupted imports, then take import jobs in this process. */
+/** Resume or end interrupted imports, then take import jobs in this process. */
 export async function startImportWorker(boss: PgBoss, db: Db) {
-	const resumed = await resumeInterruptedImports(boss, db);
-	if (resumed) console.warn(`${resumed} interrupted import(s) queued again`);
+	const { requeued, failed } = await resumeInterruptedImports(boss, db);
+	if (requeued.length) console.warn(`${requeued.length} interrupted import(s) queued again`);
+	if (failed.length) console.warn(`${failed.length} interrupted import(s) out of tries: failed`);
 	await workImportQueue(boss, db);
 }
