@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest';
 import { NOT_FOUND_MESSAGE } from '../../src/lib/server/access/not-found';
 import { createDb } from '../../src/lib/server/db/client';
 import { attachment, importBatch, invitation, user } from '../../src/lib/server/db/schema';
@@ -99,8 +99,19 @@ describe('ids', () => {
 		const hiddenFile = await fileBy('owner');
 		const [batch] = await db
 			.insert(importBatch)
-			.values({ datasetId, fileName: 'x.csv', fileSha256: 'y'.repeat(64), totalRows: 0 })
+			// A draft, as a new upload is: the column's default ('running') would leave a batch
+			// that looks interrupted to every later test that resumes imports.
+			.values({
+				datasetId,
+				fileName: 'x.csv',
+				fileSha256: 'y'.repeat(64),
+				totalRows: 0,
+				status: 'draft'
+			})
 			.returning({ id: importBatch.id });
+		onTestFinished(async () => {
+			await db.delete(importBatch).where(eq(importBatch.id, batch.id));
+		});
 		const unknown = randomUUID();
 		for (const [hidden, template] of [
 			[hiddenFile, '/api/v1/attachments/{id}/download'],

@@ -9,10 +9,10 @@
  */
 import { spawn } from 'node:child_process';
 import path from 'node:path';
-import { count, eq, sql as dsql } from 'drizzle-orm';
+import { and, count, eq, inArray, sql as dsql } from 'drizzle-orm';
 import PgBoss from 'pg-boss';
 import postgres from 'postgres';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, onTestFinished } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { importBatch, site } from '../../src/lib/server/db/schema';
 import { IMPORT_MAX_ATTEMPTS, runImportBatch } from '../../src/lib/server/imports/run-import';
@@ -48,6 +48,15 @@ async function queuedBatch(n: number, prefix: string) {
 	);
 	expect(preview.canImport).toBe(true);
 	await db.update(importBatch).set({ status: 'queued' }).where(eq(importBatch.id, batchId));
+	// Whatever the test leaves (the last step below holds a batch "running" with a live-looking
+	// heartbeat; a failure may stop anywhere), no batch stays running or queued for later files,
+	// where no worker would ever end it.
+	onTestFinished(async () => {
+		await db
+			.update(importBatch)
+			.set({ status: 'failed', error: 'test finished', finishedAt: new Date() })
+			.where(and(eq(importBatch.id, batchId), inArray(importBatch.status, ['running', 'queued'])));
+	});
 	return { datasetId, batchId };
 }
 
