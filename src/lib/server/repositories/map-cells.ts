@@ -142,13 +142,24 @@ export function refreshStaleCellsSoon(db: Db, stale: string[]): void {
 		});
 }
 
+/**
+ * A dataset deleted since it was found stale is skipped quietly and its marker dropped: its
+ * cells went with it. The dataset row is locked (KEY SHARE) before the rebuild, so a delete
+ * either ends before it (no row: skip) or waits for it; the rebuild's cells can then never
+ * point at a dataset deleted meanwhile (a foreign-key failure, or a deadlock with the delete).
+ */
 export async function refreshStaleCells(db: Db, stale: string[]): Promise<void> {
 	for (const id of stale) {
 		await db.transaction(async (tx) => {
 			const [lock] = await tx.execute<{ ok: boolean }>(
 				sql`SELECT pg_try_advisory_xact_lock(hashtext('map_cell_refresh')) AS ok`
 			);
-			if (lock.ok) await tx.execute(sql`SELECT map_cell_refresh(${id}::uuid)`);
+			if (!lock.ok) return;
+			const kept = await tx.execute(
+				sql`SELECT 1 FROM ${dataset} WHERE ${dataset.id} = ${id}::uuid FOR KEY SHARE`
+			);
+			if (kept.length === 0) await tx.delete(mapCellStale).where(eq(mapCellStale.datasetId, id));
+			else await tx.execute(sql`SELECT map_cell_refresh(${id}::uuid)`);
 		});
 	}
 }
