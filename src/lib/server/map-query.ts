@@ -14,7 +14,12 @@ export function mapQuery(
 		error(400, 'bbox is required (west,south,east,north in degrees)');
 	const box = parseBBox(params.get('bbox'));
 	if (!box.ok) error(400, box.error);
+	return { box: box.value, filters: strictSiteFilters(params) };
+}
+
+/** The shared site filters, strictly: a 400 naming every problem (map and region queries). */
+export function strictSiteFilters(params: URLSearchParams): SiteFilters {
 	const problems = siteFilterProblems(params);
 	if (problems.length) error(400, `bad filters: ${problems.join('; ')}`);
-	return { box: box.value, filters: parseSiteFilters(params) };
+	return parseSiteFilters(params);
 }

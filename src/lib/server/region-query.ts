@@ -1,19 +1,13 @@
 import { error } from '@sveltejs/kit';
 import { parseRegionParams, parseRegionPolygon, type Region } from '$lib/map/region-shape';
-import { parseSiteFilters, siteFilterProblems, type SiteFilters } from '$lib/sites/filters';
-
-/** The site filters of a region query, strictly (a 400 naming the problem, as mapQuery). */
-function strictFilters(params: URLSearchParams): SiteFilters {
-	const problems = siteFilterProblems(params);
-	if (problems.length) error(400, `bad filters: ${problems.join('; ')}`);
-	return parseSiteFilters(params);
-}
+import type { SiteFilters } from '$lib/sites/filters';
+import { strictSiteFilters } from './map-query';
 
 /** A region from the query (`bbox` or `polygon`) with the filters; bad values are a 400. */
 export function regionQuery(params: URLSearchParams): { region: Region; filters: SiteFilters } {
 	const region = parseRegionParams(params);
 	if (!region.ok) error(400, region.error);
-	return { region: region.value, filters: strictFilters(params) };
+	return { region: region.value, filters: strictSiteFilters(params) };
 }
 
 /** A polygon region from a POST body (a GeoJSON Polygon), the filters from the query. */
@@ -29,5 +23,5 @@ export async function polygonBodyQuery(
 	}
 	const ring = parseRegionPolygon(body);
 	if (!ring.ok) error(400, ring.error);
-	return { region: { kind: 'polygon', ring: ring.value }, filters: strictFilters(params) };
+	return { region: { kind: 'polygon', ring: ring.value }, filters: strictSiteFilters(params) };
 }
