@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signIn, watchForErrors } from './browser';
 import { firstLink, waitForMail } from './mail';
 
 let browser: Browser;
@@ -43,14 +43,6 @@ async function verifyFromMail(page: Page, who: typeof owner) {
 	);
 }
 
-async function signIn(page: Page, who: typeof owner) {
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(who.email);
-	await page.getByLabel('Password').fill(who.password);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-}
-
 describe('accounts and organisations, as users would do it', () => {
 	it('sign up, verify, create an organisation, invite, accept, change the role, sign out', async () => {
 		const ownerContext = await browser.newContext();
@@ -63,7 +55,7 @@ describe('accounts and organisations, as users would do it', () => {
 		await page.goto(`${appUrl()}/account`);
 		await page.getByRole('button', { name: 'Sign out' }).first().click();
 		await page.waitForURL(appUrl() + '/');
-		await signIn(page, owner);
+		await signIn(page, owner.email, owner.password);
 		await expect(page.getByText('confirmed', { exact: true }).count()).resolves.toBe(1);
 
 		await page.goto(`${appUrl()}/organisations/new`);
@@ -146,7 +138,7 @@ describe('accounts and organisations, as users would do it', () => {
 		await page.getByRole('button', { name: 'Change password' }).click();
 		await page.waitForURL(/\/sign-in\?reset=1/);
 		await page.getByText('Password changed').waitFor();
-		await signIn(page, { ...owner, password: 'a-fresh-password-9' });
+		await signIn(page, owner.email, 'a-fresh-password-9');
 		await screenshot(page, 'account-after-reset');
 
 		// The same link a second time is refused with a way forward.

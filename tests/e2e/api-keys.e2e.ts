@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signIn, watchForErrors } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -15,11 +15,7 @@ describe('API keys on the account page, as a user would manage them', () => {
 		const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
 		const page = await context.newPage();
 		const errors = watchForErrors(page);
-		await page.goto(`${appUrl()}/sign-in`);
-		await page.getByLabel('E-mail address').fill('viewer@korvald-survey.example');
-		await page.getByLabel('Password').fill('korvald-demo-2026');
-		await page.getByRole('button', { name: 'Sign in' }).click();
-		await page.waitForURL(/\/account$/);
+		await signIn(page, 'viewer@korvald-survey.example');
 
 		const name = `e2e key ${Date.now()}`;
 		await page.getByLabel('Key name').fill(name);

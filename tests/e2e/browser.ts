@@ -107,3 +107,28 @@ export async function screenshot(page: Page, name: string) {
 	fs.mkdirSync(ARTIFACTS, { recursive: true });
 	await page.screenshot({ path: path.join(ARTIFACTS, `${name}.png`), fullPage: true });
 }
+
+/** The demo accounts' password (the seeded demo organisations). */
+export const DEMO_PASSWORD = 'korvald-demo-2026';
+
+/** Sign in through the sign-in page, as a user does; resolves once the account page is shown. */
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+	await page.goto(`${appUrl()}/sign-in`);
+	await page.getByLabel('E-mail address').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+	await page.waitForURL(/\/account$/);
+}
+
+/** A new browser context (a desktop window) signed in as `email`: its page and the page's errors. */
+export async function signedIn(
+	browser: Browser,
+	email: string,
+	password = DEMO_PASSWORD
+): Promise<{ page: Page; errors: string[] }> {
+	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+	const page = await context.newPage();
+	const errors = watchForErrors(page);
+	await signIn(page, email, password);
+	return { page, errors };
+}

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { runEmbargoRelease } from '../../src/lib/server/jobs/embargo-release';
 import { createMailTransport } from '../../src/lib/server/mail-transport';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signedIn } from './browser';
 import { firstLink, waitForMailAbout } from './mail';
 
 /*
@@ -17,7 +17,6 @@ import { firstLink, waitForMailAbout } from './mail';
  * under embargo; the curator reads the diff and publishes; the release job (run from here with a
  * clock set to the release day, a hook only a test holding the database has) makes it public.
  */
-const PASSWORD = 'korvald-demo-2026';
 const CONTRIBUTOR = 'contributor@korvald-survey.example';
 const CURATOR = 'curator@korvald-survey.example';
 const OUTSIDER = 'owner@skarnholt.example';
@@ -56,18 +55,6 @@ afterAll(async () => {
 	await sql.end();
 });
 
-async function signedIn(email: string): Promise<{ page: Page; errors: string[] }> {
-	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-	const page = await context.newPage();
-	const errors = watchForErrors(page);
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(email);
-	await page.getByLabel('Password').fill(PASSWORD);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-	return { page, errors };
-}
-
 const status = (page: Page) => page.getByTestId('dataset-status').textContent();
 
 /** Import a CSV through the wizard on a draft's page and come back to the dataset. */
@@ -91,11 +78,11 @@ const dayFromNow = (days: number) =>
 
 describe('curation journey: upload, publish, share, correct under embargo, release', () => {
 	it('goes through the UI with an e-mail at each step', async () => {
-		const contributor = await signedIn(CONTRIBUTOR);
+		const contributor = await signedIn(browser, CONTRIBUTOR);
 		const c = contributor.page;
-		const curator = await signedIn(CURATOR);
+		const curator = await signedIn(browser, CURATOR);
 		const k = curator.page;
-		const outsider = await signedIn(OUTSIDER);
+		const outsider = await signedIn(browser, OUTSIDER);
 		const o = outsider.page;
 
 		// 1. The contributor creates a restricted draft and imports two sites.

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { createRequire } from 'node:module';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, screenshot } from './browser';
+import { appUrl, launch, screenshot, signIn } from './browser';
 
 /*
  * Every main page, as each kind of user reaches it, at a laptop and a phone size: axe-core's
@@ -14,7 +14,6 @@ const AXE_SOURCE = fs.readFileSync(
 	createRequire(import.meta.url).resolve('axe-core/axe.min.js'),
 	'utf8'
 );
-const PASSWORD = 'korvald-demo-2026';
 const SIZES = [
 	{ name: 'laptop', width: 1280, height: 800 },
 	{ name: 'phone', width: 390, height: 844 }
@@ -33,11 +32,7 @@ async function contextFor(email: string | null): Promise<BrowserContext> {
 	const context = await browser.newContext({ bypassCSP: true });
 	if (!email) return context;
 	const page = await context.newPage();
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(email);
-	await page.getByLabel('Password').fill(PASSWORD);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
+	await signIn(page, email);
 	await page.close();
 	return context;
 }

@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signIn, watchForErrors } from './browser';
 
 let browser: Browser;
 let tmp: string;
@@ -48,11 +48,7 @@ describe('the messy-spreadsheet journey', () => {
 		const file = path.join(tmp, 'lervik-boreholes.csv');
 		fs.writeFileSync(file, MESSY, 'utf8');
 
-		await page.goto(`${appUrl()}/sign-in`);
-		await page.getByLabel('E-mail address').fill('contributor@korvald-survey.example');
-		await page.getByLabel('Password').fill('korvald-demo-2026');
-		await page.getByRole('button', { name: 'Sign in' }).click();
-		await page.waitForURL(/\/account$/);
+		await signIn(page, 'contributor@korvald-survey.example');
 
 		await page.goto(`${appUrl()}/datasets/new`);
 		await page

@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signedIn } from './browser';
 import { waitForMail } from './mail';
 
 let browser: Browser;
@@ -11,28 +11,15 @@ afterAll(async () => {
 	await browser?.close();
 });
 
-const PASSWORD = 'korvald-demo-2026';
 const CONTRIBUTOR = 'contributor@korvald-survey.example';
 const CURATOR = 'curator@korvald-survey.example';
 
 /** A fresh browser context signed in as a demo account. */
-async function signedIn(email: string): Promise<{ page: Page; errors: string[] }> {
-	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-	const page = await context.newPage();
-	const errors = watchForErrors(page);
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(email);
-	await page.getByLabel('Password').fill(PASSWORD);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-	return { page, errors };
-}
-
 const status = (page: Page) => page.getByTestId('dataset-status').textContent();
 
 describe('review, as a contributor and a curator would do it', () => {
 	it('submit, return with a comment read from the mail, resubmit, publish', async () => {
-		const contributor = await signedIn(CONTRIBUTOR);
+		const contributor = await signedIn(browser, CONTRIBUTOR);
 		const c = contributor.page;
 		const title = `Review round trip (e2e ${Date.now()})`;
 		await c.goto(`${appUrl()}/datasets/new`);
@@ -57,7 +44,7 @@ describe('review, as a contributor and a curator would do it', () => {
 		// The curator hears of it by mail and follows the link.
 		const notice = await waitForMail(CURATOR, `"${title}" was submitted`);
 		expect(notice.text).toContain(datasetUrl);
-		const curator = await signedIn(CURATOR);
+		const curator = await signedIn(browser, CURATOR);
 		const k = curator.page;
 		await k.goto(datasetUrl);
 		const comment = 'Add the uncertainty of every heat-flow value, then submit again.';

@@ -1,12 +1,11 @@
 import { eq } from 'drizzle-orm';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { dataset, site, user } from '../../src/lib/server/db/schema';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signedIn } from './browser';
 import { firstLink, waitForMail } from './mail';
 
-const PASSWORD = 'korvald-demo-2026';
 const CURATOR = 'curator@korvald-survey.example';
 const OUTSIDER = 'owner@skarnholt.example';
 const databaseUrl = process.env.DATABASE_URL;
@@ -24,18 +23,6 @@ afterAll(async () => {
 });
 
 /** A fresh browser context signed in as a demo account. */
-async function signedIn(email: string): Promise<{ page: Page; errors: string[] }> {
-	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-	const page = await context.newPage();
-	const errors = watchForErrors(page);
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(email);
-	await page.getByLabel('Password').fill(PASSWORD);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-	return { page, errors };
-}
-
 describe('access to a restricted dataset, as an outsider and a curator would do it', () => {
 	it('request with a purpose, approval read from the mail, then the values are open', async () => {
 		// A published restricted dataset of the curator's organisation (its publication is
@@ -66,7 +53,7 @@ describe('access to a restricted dataset, as an outsider and a curator would do 
 		});
 
 		// The outsider follows a link to the dataset: only its summary, and a form to ask.
-		const outsider = await signedIn(OUTSIDER);
+		const outsider = await signedIn(browser, OUTSIDER);
 		const o = outsider.page;
 		await o.goto(`${appUrl()}/datasets/${d.id}`);
 		await o.waitForURL(/\/about$/);
@@ -82,7 +69,7 @@ describe('access to a restricted dataset, as an outsider and a curator would do 
 		// The curator reads the request in the mail, follows its link and approves.
 		const asked = await waitForMail(CURATOR, `Access requested to "${title}"`);
 		expect(asked.text).toContain('Caledonian heat flow');
-		const curator = await signedIn(CURATOR);
+		const curator = await signedIn(browser, CURATOR);
 		const k = curator.page;
 		await k.goto(firstLink(asked.text));
 		await expect(k.getByTestId('access-requests').textContent()).resolves.toContain(

@@ -1,4 +1,4 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import {
@@ -8,7 +8,7 @@ import {
 	temperatureLog,
 	type NewDataset
 } from '../../src/lib/server/db/schema';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signIn, watchForErrors } from './browser';
 
 /*
  * A contributor on a site of their draft dataset: enters bottom-hole temperatures and sees the
@@ -63,20 +63,12 @@ afterAll(async () => {
 	await sql.end();
 });
 
-async function signIn(page: Page) {
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill('contributor@korvald-survey.example');
-	await page.getByLabel('Password').fill('korvald-demo-2026');
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-}
-
 describe('corrections, heat production and revisions on a site page', () => {
 	it('BHT and heat-production entry, then choosing a log-derived revision', async () => {
 		const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
 		const page = await context.newPage();
 		const errors = watchForErrors(page);
-		await signIn(page);
+		await signIn(page, 'contributor@korvald-survey.example');
 		await page.goto(`${appUrl()}/sites/${siteId}`);
 
 		// Bottom-hole temperatures on T = 120 − 10 ln((4 + Δt)/Δt) (Horner 1951): T∞ = 120 °C.

@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, hydrated, launch } from './browser';
+import { appUrl, hydrated, launch, signIn } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -13,11 +13,7 @@ afterAll(async () => {
 describe('a page whose script arrives late (slow network, busy machine)', () => {
 	it('keeps what the user typed before the script ran, and the form still submits', async () => {
 		const page = await browser.newPage();
-		await page.goto(`${appUrl()}/sign-in`);
-		await page.getByLabel('E-mail address').fill('curator@korvald-survey.example');
-		await page.getByLabel('Password').fill('korvald-demo-2026');
-		await page.getByRole('button', { name: 'Sign in' }).click();
-		await page.waitForURL(/\/account$/);
+		await signIn(page, 'curator@korvald-survey.example');
 
 		// Hold back the app's scripts until the user has typed.
 		let release: () => void = () => {};

@@ -4,7 +4,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signIn, watchForErrors } from './browser';
 
 let browser: Browser;
 let tmp: string;
@@ -41,14 +41,6 @@ function writeCorrectedCopy(): { file: string; codes: string[] } {
 	return { file, codes };
 }
 
-async function signIn(page: Page) {
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(contributor.email);
-	await page.getByLabel('Password').fill(contributor.password);
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-}
-
 /** On the mapping step: the x / y columns are projected metres, so pick EPSG:25832 for them. */
 async function chooseUtm32(page: Page) {
 	const crsSelect = page.getByLabel('Coordinate system', { exact: true });
@@ -78,7 +70,7 @@ describe('uploading sites and files, as a contributor would do it', () => {
 		const errors = watchForErrors(page);
 		const corrected = writeCorrectedCopy();
 
-		await signIn(page);
+		await signIn(page, contributor.email, contributor.password);
 
 		// A new draft dataset.
 		const title = `Korvald boreholes (e2e ${Date.now()})`;

@@ -1,12 +1,12 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { dataset, site } from '../../src/lib/server/db/schema';
 import { testEnv } from '../integration/env';
-import { appUrl, launch, screenshot, watchForErrors } from './browser';
+import { appUrl, launch, screenshot, signedIn } from './browser';
 
 /*
  * A curator corrects a published dataset as a new version: opens the correction, adds a site
@@ -58,21 +58,9 @@ afterAll(async () => {
 	await sql.end();
 });
 
-async function signedIn(email: string): Promise<{ page: Page; errors: string[] }> {
-	const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-	const page = await context.newPage();
-	const errors = watchForErrors(page);
-	await page.goto(`${appUrl()}/sign-in`);
-	await page.getByLabel('E-mail address').fill(email);
-	await page.getByLabel('Password').fill('korvald-demo-2026');
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await page.waitForURL(/\/account$/);
-	return { page, errors };
-}
-
 describe('versions, as a curator would correct a published dataset', () => {
 	it('correct, see the diff, publish; the old version says it is superseded', async () => {
-		const { page, errors } = await signedIn('curator@korvald-survey.example');
+		const { page, errors } = await signedIn(browser, 'curator@korvald-survey.example');
 		const v1Url = `${appUrl()}/datasets/${v1Id}`;
 		await page.goto(v1Url);
 		await page.getByTestId('citation').waitFor();

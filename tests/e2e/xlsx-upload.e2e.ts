@@ -4,7 +4,7 @@ import path from 'node:path';
 import ExcelJS from 'exceljs';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { appUrl, launch, watchForErrors } from './browser';
+import { appUrl, launch, signIn, watchForErrors } from './browser';
 
 let browser: Browser;
 let tmp: string;
@@ -33,11 +33,7 @@ describe('XLSX upload in the browser', () => {
 	it('reads a workbook in the page, converts HFU and previews it without errors', async () => {
 		const page = await browser.newPage();
 		const errors = watchForErrors(page);
-		await page.goto(`${appUrl()}/sign-in`);
-		await page.getByLabel('E-mail address').fill('curator@korvald-survey.example');
-		await page.getByLabel('Password').fill('korvald-demo-2026');
-		await page.getByRole('button', { name: 'Sign in' }).click();
-		await page.waitForURL(/\/account$/);
+		await signIn(page, 'curator@korvald-survey.example');
 
 		await page.goto(`${appUrl()}/datasets/new`);
 		await page.getByLabel('Title').fill(`Workbook test ${Date.now()}`);
