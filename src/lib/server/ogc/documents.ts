@@ -289,14 +289,15 @@ export function items(
 			type: 'FeatureCollection',
 			features: page.features.map((s) => featureJson(base, ref, s, false)),
 			timeStamp: new Date().toISOString(),
-			numberMatched: page.numberMatched,
+			// Left out when it is not cheap to count (repository.ts, COUNT_CAP).
+			...(page.numberMatched === null ? {} : { numberMatched: page.numberMatched }),
 			numberReturned: page.features.length,
 			links
 		},
 		type: GEOJSON_TYPE,
 		html: {
 			title: `Features of ${collectionId(ref)}`,
-			description: `${page.features.length} of ${page.numberMatched} matching features (limit ${limit}; default ${DEFAULT_LIMIT}, at most ${MAX_LIMIT}). Parameters: ${ITEMS_PARAMETERS.join(', ')}.`,
+			description: `${page.features.length} of ${page.numberMatched ?? 'many'} matching features (limit ${limit}; default ${DEFAULT_LIMIT}, at most ${MAX_LIMIT}). Parameters: ${ITEMS_PARAMETERS.join(', ')}.`,
 			table: {
 				columns: ['Code', 'Name', 'Heat flow (mW/m²)', 'Longitude', 'Latitude', 'Dataset'],
 				rows: page.features.map((s) => ({

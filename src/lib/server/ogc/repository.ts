@@ -6,9 +6,11 @@ import {
 	eq,
 	gt,
 	gte,
+	inArray,
 	isNull,
 	lt,
 	lte,
+	notInArray,
 	or,
 	sql,
 	type SQL
@@ -17,7 +19,7 @@ import { citationFields } from '$lib/datasets/citation';
 import { isUuid } from '$lib/uuid';
 import { visibleOnMaps, type Viewer } from '../access';
 import type { Db } from '../db/client';
-import { dataset, organisation, site } from '../db/schema';
+import { dataset, mapCell, mapCellStale, organisation, site } from '../db/schema';
 import { yearRange, type CollectionRef, type ItemsQuery, type OgcBox } from './params';
 
 /*
@@ -90,11 +92,14 @@ const featureColumns = {
 	doi: dataset.doi
 };
 
-/** Which sites belong to a collection, for this viewer. */
+/**
+ * Which sites belong to a collection, for this viewer: conditions on their dataset only, so the
+ * map's stored cells (joined to the dataset the same way) can count a collection too.
+ */
 function inCollection(viewer: Viewer, ref: CollectionRef): SQL[] {
 	const base = [visibleOnMaps(viewer)];
 	if (ref.kind === 'dataset')
-		base.push(eq(site.datasetId, ref.datasetId), eq(dataset.status, 'published'));
+		base.push(eq(dataset.id, ref.datasetId), eq(dataset.status, 'published'));
 	return base;
 }
 
@@ -129,11 +134,19 @@ function selection(viewer: Viewer, ref: CollectionRef, query: ItemsQuery): SQL[]
 
 export interface ItemsPage {
 	features: OgcSite[];
-	numberMatched: number;
+	/** Null when counting is not cheap (the member is optional: OGC 17-069r4, 7.15.6). */
+	numberMatched: number | null;
 	/** Ids for the next and previous links, null where there is no such page. */
 	nextAfter: string | null;
 	prevBefore: string | null;
 }
+
+/**
+ * Counting every match on every request is what made large collections slow: a selection is
+ * counted only up to this many matches. Past it, an unfiltered collection is counted from the
+ * map's stored cells; a filtered one goes without numberMatched.
+ */
+export const COUNT_CAP = 10_000;
 
 /**
  * One page of a collection in feature-id order (keyset paging on the site's UUID, never OFFSET):
@@ -144,8 +157,10 @@ export async function itemsPage(
 	db: Db,
 	viewer: Viewer,
 	ref: CollectionRef,
-	query: ItemsQuery
+	query: ItemsQuery,
+	options: { countCap?: number } = {}
 ): Promise<ItemsPage> {
+	const countCap = options.countCap ?? COUNT_CAP;
 	const where = selection(viewer, ref, query);
 	const cursor = query.cursor;
 	const backwards = cursor !== null && 'before' in cursor;
@@ -155,7 +170,14 @@ export async function itemsPage(
 			: 'after' in cursor
 				? [gt(site.id, cursor.after)]
 				: [lt(site.id, cursor.before)];
-	const [rows, [{ matched }]] = await Promise.all([
+	const matches = db
+		.select({ one: sql`1` })
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(and(...where))
+		.limit(countCap + 1)
+		.as('matches');
+	const [rows, [{ upTo }]] = await Promise.all([
 		db
 			.select(featureColumns)
 			.from(site)
@@ -165,25 +187,53 @@ export async function itemsPage(
 			.orderBy(backwards ? desc(site.id) : asc(site.id))
 			// One more than asked tells whether another page follows in this direction.
 			.limit(query.limit + 1),
-		db
-			.select({ matched: count() })
-			.from(site)
-			.innerJoin(dataset, eq(site.datasetId, dataset.id))
-			.where(and(...where))
+		db.select({ upTo: count() }).from(matches)
 	]);
 	const more = rows.length > query.limit;
 	const page = rows.slice(0, query.limit);
 	if (backwards) page.reverse();
 	const first = page[0]?.id ?? null;
 	const last = page.at(-1)?.id ?? null;
+	const unfiltered = query.bbox === null && query.datetime === null;
 	return {
 		features: page,
-		numberMatched: matched,
+		numberMatched:
+			// A first page with no next page holds every match.
+			cursor === null && !more
+				? page.length
+				: upTo <= countCap
+					? upTo
+					: unfiltered
+						? await storedCount(db, viewer, ref)
+						: null,
 		// Forwards: a next page if one more row came back. Backwards: the `before` site follows.
 		nextAfter: backwards ? last : more ? last : null,
 		// Forwards from a cursor: the cursor's site comes before. Backwards: one more row came back.
 		prevBefore: backwards ? (more ? first : null) : cursor !== null ? first : null
 	};
+}
+
+/**
+ * A whole collection's size from the map's stored cells (zoom 0, a few rows per dataset) for
+ * datasets whose cells are current, plus a count of the sites of those marked stale, in one
+ * statement (one snapshot: the triggers mark a dataset stale with the change itself).
+ */
+async function storedCount(db: Db, viewer: Viewer, ref: CollectionRef): Promise<number> {
+	const stale = db.select({ id: mapCellStale.datasetId }).from(mapCellStale);
+	const cells = db
+		.select({ n: sql`coalesce(sum(${mapCell.count}), 0)` })
+		.from(mapCell)
+		.innerJoin(dataset, eq(mapCell.datasetId, dataset.id))
+		.where(
+			and(eq(mapCell.zoom, 0), ...inCollection(viewer, ref), notInArray(mapCell.datasetId, stale))
+		);
+	const live = db
+		.select({ n: count() })
+		.from(site)
+		.innerJoin(dataset, eq(site.datasetId, dataset.id))
+		.where(and(...inCollection(viewer, ref), inArray(site.datasetId, stale)));
+	const [{ n }] = await db.execute<{ n: number }>(sql`SELECT ((${cells}) + (${live}))::int AS n`);
+	return n;
 }
 
 /** One site of a collection, or null when it is not in it or not visible (the same answer). */
