@@ -12,6 +12,8 @@ import {
 	type Variogram,
 	type VariogramPoint
 } from '../geostats';
+import { HIT_D2 } from '../geostats/idw';
+import { NeighbourIndex } from '../geostats/neighbours';
 import { DEFAULT_KRIGING_NEIGHBOURS, type GridRequest } from './request';
 
 /**
@@ -145,48 +147,66 @@ function chooseVariogram(
 	};
 }
 
-/** Leave-one-out IDW: each site estimated from the others (the nearest maxNeighbours, or all). */
+/**
+ * Leave-one-out IDW: each site estimated from the others (the nearest maxNeighbours, or all),
+ * with inverseDistanceGrid's weights 1/dᵖ = (d²)^(−p/2) and its hit rule (another site within
+ * √HIT_D2 gives its value; several give their mean). With every site this is n² pairs, so the
+ * loop is flat typed arrays with 1/d² for power 2, and the nearest sites come from the k-d tree.
+ */
 function idwCrossValidation(samples: Sample[], power: number, k?: number): CrossValidation {
 	const pairs: [number, number][] = [];
 	const n = samples.length;
 	const xs = Float64Array.from(samples, (s) => s.x);
 	const ys = Float64Array.from(samples, (s) => s.y);
 	const zs = Float64Array.from(samples, (s) => s.value);
-	// Weights from squared distances, 1/dᵖ = (d²)^(−p/2), as inverseDistanceGrid does: with every
-	// site this is n² pairs, and Math.hypot, powers and arrays per site made it most of the job.
 	const half = power / 2;
-	const d2 = new Float64Array(n);
-	const order = new Int32Array(n);
+	const useNearest = k !== undefined && k < n - 1;
+	const index = useNearest ? new NeighbourIndex(xs, ys) : null;
+	const idx = new Int32Array(useNearest ? k + 1 : 0);
+	const d2s = new Float64Array(useNearest ? k + 1 : 0);
 	for (let i = 0; i < n; i++) {
 		const xi = xs[i];
 		const yi = ys[i];
-		for (let q = 0; q < n; q++) {
-			const ex = xs[q] - xi;
-			const ey = ys[q] - yi;
-			d2[q] = ex * ex + ey * ey;
-		}
 		let sw = 0;
 		let swz = 0;
-		let exact: number | null = null;
-		const use = (q: number) => {
-			if (d2[q] === 0) {
-				exact = zs[q];
-				return false;
+		let hits = 0;
+		let hitSum = 0;
+		if (index) {
+			const found = index.nearest(xi, yi, k! + 1, Infinity, idx, d2s);
+			let used = 0;
+			for (let f = 0; f < found && used < k!; f++) {
+				const q = idx[f];
+				if (q === i) continue;
+				used++;
+				const d2 = d2s[f];
+				if (d2 < HIT_D2) {
+					hits++;
+					hitSum += zs[q];
+				} else {
+					const w = power === 2 ? 1 / d2 : Math.pow(d2, -half);
+					sw += w;
+					swz += w * zs[q];
+				}
 			}
-			const w = power === 2 ? 1 / d2[q] : Math.pow(d2[q], -half);
-			sw += w;
-			swz += w * zs[q];
-			return true;
-		};
-		if (k !== undefined && k < n - 1) {
-			for (let q = 0; q < n; q++) order[q] = q;
-			const sorted = Array.from(order).sort((a, b) => d2[a] - d2[b]);
-			const ids = sorted.filter((q) => q !== i).slice(0, k);
-			for (const q of ids) if (!use(q)) break;
 		} else {
-			for (let q = 0; q < n; q++) if (q !== i && !use(q)) break;
+			for (let q = 0; q < n; q++) {
+				const ex = xs[q] - xi;
+				const ey = ys[q] - yi;
+				const d2 = ex * ex + ey * ey;
+				if (d2 < HIT_D2) {
+					// Site i itself (d = 0) is left out; another site this close is a hit.
+					if (q !== i) {
+						hits++;
+						hitSum += zs[q];
+					}
+				} else {
+					const w = power === 2 ? 1 / d2 : Math.pow(d2, -half);
+					sw += w;
+					swz += w * zs[q];
+				}
+			}
 		}
-		pairs.push([zs[i], exact ?? swz / sw]);
+		pairs.push([zs[i], hits > 0 ? hitSum / hits : swz / sw]);
 	}
 	return summarise(pairs, null);
 }
