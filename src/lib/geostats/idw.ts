@@ -26,6 +26,9 @@ export interface IdwOptions {
 	maxCells?: number;
 }
 
+/** Writes rows j0 … j1 − 1 of a grid into a full-grid array (index j · nx + i). */
+export type IdwRows = (j0: number, j1: number, out: Float64Array) => void;
+
 /**
  * Inverse-distance-weighted grid (Shepard 1968): ẑ = Σ wᵢ zᵢ / Σ wᵢ with wᵢ = 1 / dᵢᵖ,
  * evaluated at cell centres; value units as the samples. A cell centre within √HIT_D2 of
@@ -37,6 +40,17 @@ export function inverseDistanceGrid(
 	grid: GridSpec,
 	opts: IdwOptions
 ): Float64Array {
+	const out = new Float64Array(grid.nx * grid.ny);
+	idwRows(samples, grid, opts)(0, grid.ny, out);
+	return out;
+}
+
+/**
+ * inverseDistanceGrid a row range at a time, with the samples checked and unpacked and the
+ * k-d tree built once (the grid job computes strips of rows between progress reports). Each
+ * cell depends only on the samples, so any split of the rows gives the same grid.
+ */
+export function idwRows(samples: Sample[], grid: GridSpec, opts: IdwOptions): IdwRows {
 	validateSamples(samples, 1);
 	if (opts === null || typeof opts !== 'object') {
 		throw new InputError('opts', opts, 'must be an object with a power');
@@ -58,23 +72,20 @@ export function inverseDistanceGrid(
 	}
 	// Weights from squared distance: 1/dᵖ = (d²)^(−p/2); p = 2 avoids Math.pow entirely.
 	const half = power / 2;
-	const weight = power === 2 ? (d2: number) => 1 / d2 : (d2: number) => Math.pow(d2, -half);
+	const weight = power === 2 ? inverseSquare : (d2: number) => Math.pow(d2, -half);
 
-	const { nx, ny, x0, y0, dx, dy } = grid;
-	const out = new Float64Array(nx * ny);
+	const { nx, x0, y0, dx, dy } = grid;
 
 	if (k === undefined && radius === undefined) {
-		if (power === 2) {
-			everySitePower2(xs, ys, zs, grid, out);
-			return out;
-		}
-		for (let j = 0; j < ny; j++) {
-			const cy = y0 + (j + 0.5) * dy;
-			for (let i = 0; i < nx; i++) {
-				out[j * nx + i] = everySiteCell(xs, ys, zs, x0 + (i + 0.5) * dx, cy, weight);
+		if (power === 2) return (j0, j1, out) => everySitePower2(xs, ys, zs, grid, j0, j1, out);
+		return (j0, j1, out) => {
+			for (let j = j0; j < j1; j++) {
+				const cy = y0 + (j + 0.5) * dy;
+				for (let i = 0; i < nx; i++) {
+					out[j * nx + i] = everySiteCell(xs, ys, zs, x0 + (i + 0.5) * dx, cy, weight);
+				}
 			}
-		}
-		return out;
+		};
 	}
 
 	const index = new NeighbourIndex(xs, ys);
@@ -82,47 +93,50 @@ export function inverseDistanceGrid(
 	const kk = k ?? n;
 	const idx = new Int32Array(Math.min(kk, n));
 	const d2s = new Float64Array(Math.min(kk, n));
-	for (let j = 0; j < ny; j++) {
-		const cy = y0 + (j + 0.5) * dy;
-		for (let i = 0; i < nx; i++) {
-			const cx = x0 + (i + 0.5) * dx;
-			let count: number;
-			if (k === undefined) {
-				const found = index.within(cx, cy, maxD);
-				count = found.length;
-				for (let q = 0; q < count; q++) {
-					const s = found[q];
-					idx[q] = s;
-					d2s[q] = (xs[s] - cx) ** 2 + (ys[s] - cy) ** 2;
-				}
-			} else {
-				count = index.nearest(cx, cy, kk, maxD, idx, d2s);
-			}
-			if (count === 0) {
-				out[j * nx + i] = NaN;
-				continue;
-			}
-			let sw = 0;
-			let swz = 0;
-			let exact = 0;
-			let exactSum = 0;
-			for (let q = 0; q < count; q++) {
-				const d2 = d2s[q];
-				const z = zs[idx[q]];
-				if (d2 < HIT_D2) {
-					exact++;
-					exactSum += z;
+	return (j0, j1, out) => {
+		for (let j = j0; j < j1; j++) {
+			const cy = y0 + (j + 0.5) * dy;
+			for (let i = 0; i < nx; i++) {
+				const cx = x0 + (i + 0.5) * dx;
+				let count: number;
+				if (k === undefined) {
+					const found = index.within(cx, cy, maxD);
+					count = found.length;
+					for (let q = 0; q < count; q++) {
+						const s = found[q];
+						idx[q] = s;
+						d2s[q] = (xs[s] - cx) ** 2 + (ys[s] - cy) ** 2;
+					}
 				} else {
-					const w = weight(d2);
-					sw += w;
-					swz += w * z;
+					count = index.nearest(cx, cy, kk, maxD, idx, d2s);
 				}
+				if (count === 0) {
+					out[j * nx + i] = NaN;
+					continue;
+				}
+				let sw = 0;
+				let swz = 0;
+				let exact = 0;
+				let exactSum = 0;
+				for (let q = 0; q < count; q++) {
+					const d2 = d2s[q];
+					const z = zs[idx[q]];
+					if (d2 < HIT_D2) {
+						exact++;
+						exactSum += z;
+					} else {
+						const w = weight(d2);
+						sw += w;
+						swz += w * z;
+					}
+				}
+				out[j * nx + i] = exact > 0 ? exactSum / exact : swz / sw;
 			}
-			out[j * nx + i] = exact > 0 ? exactSum / exact : swz / sw;
 		}
-	}
-	return out;
+	};
 }
+
+const inverseSquare = (d2: number) => 1 / d2;
 
 /** One cell from every sample with any weight function, hits handled (the careful path). */
 function everySiteCell(
@@ -153,8 +167,6 @@ function everySiteCell(
 	return exact > 0 ? exactSum / exact : swz / sw;
 }
 
-const inverseSquare = (d2: number) => 1 / d2;
-
 /**
  * The hot kernel of IDW with every sample and power 2 (the grid job's default), written for
  * speed because it is n × cells pairs (5,000 × 65,536 in the benchmark):
@@ -172,11 +184,13 @@ function everySitePower2(
 	ys: Float64Array,
 	zs: Float64Array,
 	grid: GridSpec,
+	j0: number,
+	j1: number,
 	out: Float64Array
 ): void {
-	const { nx, ny, x0, y0, dx, dy } = grid;
+	const { nx, x0, y0, dx, dy } = grid;
 	const n = xs.length;
-	for (let j = 0; j < ny; j++) {
+	for (let j = j0; j < j1; j++) {
 		const cy = y0 + (j + 0.5) * dy;
 		const row = j * nx;
 		let i = 0;

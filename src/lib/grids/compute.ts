@@ -3,10 +3,10 @@ import {
 	defaultLagClasses,
 	empiricalVariogram,
 	fitVariogramToPoints,
-	inverseDistanceGrid,
+	idwRows,
+	krigingRows,
 	maskByDistance,
 	mergeDuplicateSamples,
-	ordinaryKrigingGrid,
 	type GridSpec,
 	type Sample,
 	type Variogram,
@@ -272,23 +272,27 @@ export async function computeGrid(
 	}
 	await onProgress(0.15);
 
+	// Set-up (checks, k-d tree, solver buffers) once; the strips only compute their rows.
+	const value64 = new Float64Array(cells);
+	const sigma64 = sigma ? new Float64Array(cells) : null;
+	const rows =
+		req.method === 'kriging' ? krigingRows(samples, grid, variogram!, { maxNeighbours: k }) : null;
+	const idw =
+		req.method === 'kriging'
+			? null
+			: idwRows(samples, grid, { power: req.power, maxNeighbours: k });
 	for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
-		const rows = Math.min(STRIP_ROWS, grid.ny - j0);
-		const strip: GridSpec = { ...grid, y0: grid.y0 + j0 * grid.dy, ny: rows };
-		if (req.method === 'kriging') {
-			const r = ordinaryKrigingGrid(samples, strip, variogram!, { maxNeighbours: k });
-			value.set(r.value, j0 * grid.nx);
-			sigma!.set(r.sigma, j0 * grid.nx);
-		} else {
-			const r = inverseDistanceGrid(samples, strip, { power: req.power, maxNeighbours: k });
-			value.set(r, j0 * grid.nx);
-		}
-		await onProgress(0.15 + (0.8 * (j0 + rows)) / grid.ny);
+		const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
+		if (rows) rows(j0, j1, value64, sigma64!);
+		else idw!(j0, j1, value64);
+		await onProgress(0.15 + (0.8 * j1) / grid.ny);
 	}
+	value.set(value64);
+	if (sigma) sigma.set(sigma64!);
 
 	let maskedCells = 0;
 	if (req.maskDistanceM !== undefined) {
-		const masked = maskByDistance(Float64Array.from(value), grid, samples, req.maskDistanceM);
+		const masked = maskByDistance(value64, grid, samples, req.maskDistanceM);
 		for (let c = 0; c < cells; c++) {
 			if (Number.isNaN(masked[c])) {
 				value[c] = NaN;
