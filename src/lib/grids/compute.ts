@@ -188,7 +188,32 @@ function idwCrossValidation(samples: Sample[], power: number, k?: number): Cross
 					swz += w * zs[q];
 				}
 			}
-		} else {
+		} else if (power === 2) {
+			// The common case, n² pairs: no branch in the loops (site i itself is skipped by the
+			// two ranges); a hit (d² < HIT_D2) makes Σw ≥ 1/HIT_D2, and such a site is redone
+			// by the careful loop below, as in inverseDistanceGrid's kernel.
+			for (let q = 0; q < i; q++) {
+				const ex = xs[q] - xi;
+				const ey = ys[q] - yi;
+				const w = 1 / (ex * ex + ey * ey);
+				sw += w;
+				swz += w * zs[q];
+			}
+			for (let q = i + 1; q < n; q++) {
+				const ex = xs[q] - xi;
+				const ey = ys[q] - yi;
+				const w = 1 / (ex * ex + ey * ey);
+				sw += w;
+				swz += w * zs[q];
+			}
+			if (sw < 1 / HIT_D2) {
+				pairs.push([zs[i], swz / sw]);
+				continue;
+			}
+			sw = 0;
+			swz = 0;
+		}
+		if (!index) {
 			for (let q = 0; q < n; q++) {
 				const ex = xs[q] - xi;
 				const ey = ys[q] - yi;
