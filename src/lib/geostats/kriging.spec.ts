@@ -252,3 +252,18 @@ describe('krigingRows: any split of the rows gives the same grid', () => {
 		}
 	});
 });
+
+describe('singular systems in small value units', () => {
+	it('reports near-duplicates 1 mm apart when the sill is far below 1, as the LU solver alone did', () => {
+		// Values in W/m² rather than mW/m²: sill 5e-5. The bordered matrix LU sees holds 1s.
+		const tiny: Variogram = { model: 'gaussian', nugget: 0, partialSill: 5e-5, rangeM: 3000 };
+		const near = [
+			...few.map((s) => ({ ...s, value: s.value / 1000 })),
+			{ x: 1000 + 1e-3, y: 200, value: 0.07 }
+		];
+		const g: GridSpec = { x0: 0, y0: 0, dx: 500, dy: 500, nx: 4, ny: 4 };
+		expect(() => ordinaryKrigingGrid(near, g, tiny, { maxNeighbours: 4 })).toThrow(
+			SingularSystemError
+		);
+	});
+});

@@ -213,7 +213,8 @@ export class LocalKriger {
 
 		const l = this.l;
 		for (let q = 0; q < count * count; q++) l[q] = k[q];
-		this.useLu = !choleskyLower(l, count);
+		// minScale 1: the bordered matrix that LU would see holds 1s, so its tolerance is the same.
+		this.useLu = !choleskyLower(l, count, 1);
 		if (!this.useLu) {
 			const v = this.v;
 			for (let r = 0; r < count; r++) v[r] = 1;

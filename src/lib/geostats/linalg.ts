@@ -120,11 +120,11 @@ export function invert(a: Float64Array, n: number): Float64Array | null {
 /**
  * Cholesky factorisation A = L Lᵀ in place into the lower triangle (the upper triangle is left
  * as it was), for the kriging covariance matrices: the same pivot test as luFactor (a pivot,
- * here l_jj², below SINGULAR_TOLERANCE × max|a| fails), so a caller can fall back to LU. Half
- * the work of LU and no pivot search (Golub & Van Loan 2013, Alg. 4.2.1).
+ * here l_jj², below SINGULAR_TOLERANCE × max(max|a|, minScale) fails), so a caller can fall back
+ * to LU. Half the work of LU and no pivot search (Golub & Van Loan 2013, Alg. 4.2.1).
  */
-export function choleskyLower(a: Float64Array, n: number): boolean {
-	let scale = 0;
+export function choleskyLower(a: Float64Array, n: number, minScale = 0): boolean {
+	let scale = minScale;
 	for (let k = 0; k < n * n; k++) {
 		const v = Math.abs(a[k]);
 		if (v > scale) scale = v;
