@@ -29,8 +29,10 @@ export function crossValidationResiduals(
 	const solver = new LocalKriger(p, k);
 	const idx = new Int32Array(k + 1);
 	const d2 = new Float64Array(k + 1);
-	const out: CrossValidationResidual[] = [];
-	for (let i = 0; i < p.n; i++) {
+	const out = new Array<CrossValidationResidual>(p.n);
+	// Sites in the k-d tree's order, so consecutive neighbour sets share most samples and the
+	// solver copies their covariances; each result is independent of the order (kriging.ts).
+	for (const i of index.spatialOrder()) {
 		const found = index.nearest(p.xs[i], p.ys[i], k + 1, Infinity, idx, d2);
 		// Drop sample i itself (or, if k + 1 others tie at distance 0, the farthest one).
 		let w = 0;
@@ -42,7 +44,7 @@ export function crossValidationResiduals(
 			w++;
 		}
 		const r = solver.solve(p.xs[i], p.ys[i], idx, d2, w);
-		out.push({ estimate: r.value, error: r.value - p.zs[i], variance: r.variance + p.noise[i] });
+		out[i] = { estimate: r.value, error: r.value - p.zs[i], variance: r.variance + p.noise[i] };
 	}
 	return out;
 }

@@ -73,3 +73,32 @@ describe('empiricalVariogram lag classes [k·lag, (k+1)·lag), hM = mean pair di
 		).toThrow(InputError);
 	});
 });
+
+describe('empiricalVariogram pair subsample above maxPairs (seeded Bernoulli sampling, common practice, no source)', () => {
+	const pairs = (gstat.samples.length * (gstat.samples.length - 1)) / 2;
+
+	it('uses every pair up to maxPairs, the same classes as without the option', () => {
+		const all = empiricalVariogram(gstat.samples, gstat.empirical);
+		expect(empiricalVariogram(gstat.samples, { ...gstat.empirical, maxPairs: pairs })).toEqual(all);
+	});
+
+	it('keeps about maxPairs pairs, the same ones on every call', () => {
+		const opts = { ...gstat.empirical, maxPairs: Math.round(pairs / 2) };
+		const a = empiricalVariogram(gstat.samples, opts);
+		const b = empiricalVariogram(gstat.samples, opts);
+		expect(b).toEqual(a);
+		const inRange = empiricalVariogram(gstat.samples, gstat.empirical).reduce(
+			(t, p) => t + p.pairs,
+			0
+		);
+		const kept = a.reduce((t, p) => t + p.pairs, 0);
+		// Each pair in the lag range is kept with probability ½: within 5 σ of inRange / 2.
+		expect(Math.abs(kept - inRange / 2)).toBeLessThan(5 * Math.sqrt(inRange / 4));
+	});
+
+	it('rejects a maxPairs that is not a positive integer', () => {
+		expect(() => empiricalVariogram(gstat.samples, { ...gstat.empirical, maxPairs: 0.5 })).toThrow(
+			expect.objectContaining({ field: 'opts.maxPairs' })
+		);
+	});
+});

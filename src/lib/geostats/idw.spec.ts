@@ -252,3 +252,39 @@ describe('inverseDistanceGrid input errors', () => {
 		).toHaveLength(100);
 	});
 });
+
+describe('inverseDistanceGrid, every sample at power 2 (the four-cell kernel)', () => {
+	// 7 × 3 cells: one block of four and a tail of three per row, so both code paths run.
+	const grid: GridSpec = { x0: 0, y0: 0, dx: 10, dy: 10, nx: 7, ny: 3 };
+	const samples: Sample[] = [
+		{ x: 15, y: 5, value: 0 }, // on cell (1, 0)'s centre, value 0 (1/0 · 0 would be NaN)
+		{ x: 35, y: 15 + 1e-7, value: 30 }, // within √1e-13 m of cell (3, 1): a hit, as in GDAL
+		{ x: 62, y: 21, value: 80 },
+		{ x: 41, y: 2, value: 55 },
+		{ x: 3, y: 28, value: 12 }
+	];
+
+	it('gives the same cells as the neighbour path with every sample, hits included', () => {
+		const fast = inverseDistanceGrid(samples, grid, { power: 2 });
+		const slow = inverseDistanceGrid(samples, grid, { power: 2, maxNeighbours: samples.length });
+		expect(fast[0 * 7 + 1]).toBe(0);
+		expect(fast[1 * 7 + 3]).toBe(30);
+		for (let c = 0; c < fast.length; c++) {
+			expect(Number.isFinite(fast[c])).toBe(true);
+			expect(Math.abs(fast[c] - slow[c])).toBeLessThanOrEqual(1e-12 * Math.abs(slow[c]) + 1e-12);
+		}
+	});
+
+	it('matches the hand-computed weighted mean away from samples', () => {
+		const g = inverseDistanceGrid(samples, grid, { power: 2 });
+		// Cell (5, 2), centre (55, 25).
+		let sw = 0;
+		let swz = 0;
+		for (const s of samples) {
+			const w = 1 / ((s.x - 55) ** 2 + (s.y - 25) ** 2);
+			sw += w;
+			swz += w * s.value;
+		}
+		expect(g[2 * 7 + 5]).toBeCloseTo(swz / sw, 12);
+	});
+});

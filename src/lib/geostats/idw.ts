@@ -4,6 +4,17 @@ import type { GridSpec, Sample } from './types';
 import { requirePositive } from '../foundation/validate';
 import { optionalNeighbours, validateGrid, validateSamples } from './validate';
 
+/**
+ * A sample closer than this to a cell centre (squared, m²) is a hit: the cell takes its value.
+ * GDAL's invdist uses the same threshold (gdalgrid.cpp, `dfR2 < 0.0000000000001`); where GDAL
+ * takes the first such sample, we take the mean of all of them, so the order of the samples
+ * does not matter (the grid job merges co-located sites first, so the two agree there).
+ */
+export const HIT_D2 = 1e-13;
+
+/** Above this Σw a cell may hold a hit (w = 1/d² > 1/HIT_D2) and is recomputed with care. */
+const SUSPECT_SUM = 1 / HIT_D2;
+
 export interface IdwOptions {
 	/** Exponent p of the weights 1 / dᵖ (Shepard 1968); 2 is common practice. */
 	power: number;
@@ -15,9 +26,12 @@ export interface IdwOptions {
 	maxCells?: number;
 }
 
+/** Writes rows j0 … j1 − 1 of a grid into a full-grid array (index j · nx + i). */
+export type IdwRows = (j0: number, j1: number, out: Float64Array) => void;
+
 /**
  * Inverse-distance-weighted grid (Shepard 1968): ẑ = Σ wᵢ zᵢ / Σ wᵢ with wᵢ = 1 / dᵢᵖ,
- * evaluated at cell centres; value units as the samples. A cell centre that coincides with
+ * evaluated at cell centres; value units as the samples. A cell centre within √HIT_D2 of
  * samples takes their mean (IDW is exact there). Without maxNeighbours and radiusM every
  * sample is used; with them, the nearest maxNeighbours within radiusM, and NaN if none.
  */
@@ -26,6 +40,17 @@ export function inverseDistanceGrid(
 	grid: GridSpec,
 	opts: IdwOptions
 ): Float64Array {
+	const out = new Float64Array(grid.nx * grid.ny);
+	idwRows(samples, grid, opts)(0, grid.ny, out);
+	return out;
+}
+
+/**
+ * inverseDistanceGrid a row range at a time, with the samples checked and unpacked and the
+ * k-d tree built once (the grid job computes strips of rows between progress reports). Each
+ * cell depends only on the samples, so any split of the rows gives the same grid.
+ */
+export function idwRows(samples: Sample[], grid: GridSpec, opts: IdwOptions): IdwRows {
 	validateSamples(samples, 1);
 	if (opts === null || typeof opts !== 'object') {
 		throw new InputError('opts', opts, 'must be an object with a power');
@@ -47,54 +72,20 @@ export function inverseDistanceGrid(
 	}
 	// Weights from squared distance: 1/dᵖ = (d²)^(−p/2); p = 2 avoids Math.pow entirely.
 	const half = power / 2;
-	const weight = power === 2 ? (d2: number) => 1 / d2 : (d2: number) => Math.pow(d2, -half);
+	const weight = power === 2 ? inverseSquare : (d2: number) => Math.pow(d2, -half);
 
-	const { nx, ny, x0, y0, dx, dy } = grid;
-	const out = new Float64Array(nx * ny);
+	const { nx, x0, y0, dx, dy } = grid;
 
 	if (k === undefined && radius === undefined) {
-		for (let j = 0; j < ny; j++) {
-			const cy = y0 + (j + 0.5) * dy;
-			for (let i = 0; i < nx; i++) {
-				const cx = x0 + (i + 0.5) * dx;
-				let sw = 0;
-				let swz = 0;
-				let exact = 0;
-				let exactSum = 0;
-				if (power === 2) {
-					// Hot loop for the common power: inlined 1/d² (2–3× faster than the callback).
-					for (let s = 0; s < n; s++) {
-						const ex = xs[s] - cx;
-						const ey = ys[s] - cy;
-						const d2 = ex * ex + ey * ey;
-						if (d2 === 0) {
-							exact++;
-							exactSum += zs[s];
-						} else {
-							const w = 1 / d2;
-							sw += w;
-							swz += w * zs[s];
-						}
-					}
-				} else {
-					for (let s = 0; s < n; s++) {
-						const ex = xs[s] - cx;
-						const ey = ys[s] - cy;
-						const d2 = ex * ex + ey * ey;
-						if (d2 === 0) {
-							exact++;
-							exactSum += zs[s];
-						} else {
-							const w = weight(d2);
-							sw += w;
-							swz += w * zs[s];
-						}
-					}
+		if (power === 2) return (j0, j1, out) => everySitePower2(xs, ys, zs, grid, j0, j1, out);
+		return (j0, j1, out) => {
+			for (let j = j0; j < j1; j++) {
+				const cy = y0 + (j + 0.5) * dy;
+				for (let i = 0; i < nx; i++) {
+					out[j * nx + i] = everySiteCell(xs, ys, zs, x0 + (i + 0.5) * dx, cy, weight);
 				}
-				out[j * nx + i] = exact > 0 ? exactSum / exact : swz / sw;
 			}
-		}
-		return out;
+		};
 	}
 
 	const index = new NeighbourIndex(xs, ys);
@@ -102,44 +93,152 @@ export function inverseDistanceGrid(
 	const kk = k ?? n;
 	const idx = new Int32Array(Math.min(kk, n));
 	const d2s = new Float64Array(Math.min(kk, n));
-	for (let j = 0; j < ny; j++) {
-		const cy = y0 + (j + 0.5) * dy;
-		for (let i = 0; i < nx; i++) {
-			const cx = x0 + (i + 0.5) * dx;
-			let count: number;
-			if (k === undefined) {
-				const found = index.within(cx, cy, maxD);
-				count = found.length;
-				for (let q = 0; q < count; q++) {
-					const s = found[q];
-					idx[q] = s;
-					d2s[q] = (xs[s] - cx) ** 2 + (ys[s] - cy) ** 2;
-				}
-			} else {
-				count = index.nearest(cx, cy, kk, maxD, idx, d2s);
-			}
-			if (count === 0) {
-				out[j * nx + i] = NaN;
-				continue;
-			}
-			let sw = 0;
-			let swz = 0;
-			let exact = 0;
-			let exactSum = 0;
-			for (let q = 0; q < count; q++) {
-				const d2 = d2s[q];
-				const z = zs[idx[q]];
-				if (d2 === 0) {
-					exact++;
-					exactSum += z;
+	return (j0, j1, out) => {
+		for (let j = j0; j < j1; j++) {
+			const cy = y0 + (j + 0.5) * dy;
+			for (let i = 0; i < nx; i++) {
+				const cx = x0 + (i + 0.5) * dx;
+				let count: number;
+				if (k === undefined) {
+					const found = index.within(cx, cy, maxD);
+					count = found.length;
+					for (let q = 0; q < count; q++) {
+						const s = found[q];
+						idx[q] = s;
+						d2s[q] = (xs[s] - cx) ** 2 + (ys[s] - cy) ** 2;
+					}
 				} else {
-					const w = weight(d2);
-					sw += w;
-					swz += w * z;
+					count = index.nearest(cx, cy, kk, maxD, idx, d2s);
 				}
+				if (count === 0) {
+					out[j * nx + i] = NaN;
+					continue;
+				}
+				let sw = 0;
+				let swz = 0;
+				let exact = 0;
+				let exactSum = 0;
+				for (let q = 0; q < count; q++) {
+					const d2 = d2s[q];
+					const z = zs[idx[q]];
+					if (d2 < HIT_D2) {
+						exact++;
+						exactSum += z;
+					} else {
+						const w = weight(d2);
+						sw += w;
+						swz += w * z;
+					}
+				}
+				out[j * nx + i] = exact > 0 ? exactSum / exact : swz / sw;
 			}
-			out[j * nx + i] = exact > 0 ? exactSum / exact : swz / sw;
+		}
+	};
+}
+
+const inverseSquare = (d2: number) => 1 / d2;
+
+/** One cell from every sample with any weight function, hits handled (the careful path). */
+function everySiteCell(
+	xs: Float64Array,
+	ys: Float64Array,
+	zs: Float64Array,
+	cx: number,
+	cy: number,
+	weight: (d2: number) => number
+): number {
+	let sw = 0;
+	let swz = 0;
+	let exact = 0;
+	let exactSum = 0;
+	for (let s = 0; s < xs.length; s++) {
+		const ex = xs[s] - cx;
+		const ey = ys[s] - cy;
+		const d2 = ex * ex + ey * ey;
+		if (d2 < HIT_D2) {
+			exact++;
+			exactSum += zs[s];
+		} else {
+			const w = weight(d2);
+			sw += w;
+			swz += w * zs[s];
 		}
 	}
-	return out;
+	return exact > 0 ? exactSum / exact : swz / sw;
+}
+
+/**
+ * The hot kernel of IDW with every sample and power 2 (the grid job's default), written for
+ * speed because it is n × cells pairs (5,000 × 65,536 in the benchmark):
+ * - w = 1/d² from the squared distance: no sqrt, no pow;
+ * - four cells of a row per pass over the samples, so each sample's x, y, z is loaded once
+ *   for four cells and the four divisions are independent (the CPU overlaps them); measured
+ *   about 2× faster than one cell per pass on the benchmark machine;
+ * - no branch in the inner loop: a hit (d² < HIT_D2) makes a weight above 1/HIT_D2 (or
+ *   Infinity at d = 0), so Σw ≥ SUSPECT_SUM flags the cell and it is recomputed by
+ *   everySiteCell, which handles hits. A cell flagged without a hit gets the same weights.
+ * Same weights and sums in the same order as everySiteCell, so the results are identical.
+ */
+function everySitePower2(
+	xs: Float64Array,
+	ys: Float64Array,
+	zs: Float64Array,
+	grid: GridSpec,
+	j0: number,
+	j1: number,
+	out: Float64Array
+): void {
+	const { nx, x0, y0, dx, dy } = grid;
+	const n = xs.length;
+	for (let j = j0; j < j1; j++) {
+		const cy = y0 + (j + 0.5) * dy;
+		const row = j * nx;
+		let i = 0;
+		for (; i + 4 <= nx; i += 4) {
+			const c0 = x0 + (i + 0.5) * dx;
+			const c1 = x0 + (i + 1.5) * dx;
+			const c2 = x0 + (i + 2.5) * dx;
+			const c3 = x0 + (i + 3.5) * dx;
+			let s0 = 0,
+				s1 = 0,
+				s2 = 0,
+				s3 = 0,
+				t0 = 0,
+				t1 = 0,
+				t2 = 0,
+				t3 = 0;
+			for (let q = 0; q < n; q++) {
+				const x = xs[q];
+				const ey = ys[q] - cy;
+				const e2 = ey * ey;
+				const z = zs[q];
+				let e = x - c0;
+				const w0 = 1 / (e * e + e2);
+				e = x - c1;
+				const w1 = 1 / (e * e + e2);
+				e = x - c2;
+				const w2 = 1 / (e * e + e2);
+				e = x - c3;
+				const w3 = 1 / (e * e + e2);
+				s0 += w0;
+				t0 += w0 * z;
+				s1 += w1;
+				t1 += w1 * z;
+				s2 += w2;
+				t2 += w2 * z;
+				s3 += w3;
+				t3 += w3 * z;
+			}
+			out[row + i] = s0 < SUSPECT_SUM ? t0 / s0 : everySiteCell(xs, ys, zs, c0, cy, inverseSquare);
+			out[row + i + 1] =
+				s1 < SUSPECT_SUM ? t1 / s1 : everySiteCell(xs, ys, zs, c1, cy, inverseSquare);
+			out[row + i + 2] =
+				s2 < SUSPECT_SUM ? t2 / s2 : everySiteCell(xs, ys, zs, c2, cy, inverseSquare);
+			out[row + i + 3] =
+				s3 < SUSPECT_SUM ? t3 / s3 : everySiteCell(xs, ys, zs, c3, cy, inverseSquare);
+		}
+		for (; i < nx; i++) {
+			out[row + i] = everySiteCell(xs, ys, zs, x0 + (i + 0.5) * dx, cy, inverseSquare);
+		}
+	}
 }

@@ -9,7 +9,7 @@ export type { Sample, GridSpec, VariogramModel, Variogram, VariogramPoint } from
 export { InputError } from '../foundation/errors';
 export { SingularSystemError } from './errors';
 export { MAX_GRID_CELLS, cellCentreX, cellCentreY, cellIndex, gridFromExtent } from './grid';
-export { inverseDistanceGrid, type IdwOptions } from './idw';
+export { inverseDistanceGrid, idwRows, type IdwOptions, type IdwRows } from './idw';
 export { semivariance, sill, structure } from './variogram';
 export { empiricalVariogram, defaultLagClasses, DEFAULT_LAGS } from './empirical';
 export {
@@ -19,7 +19,13 @@ export {
 	fitVariogramToPoints,
 	wlsObjective
 } from './fit';
-export { ordinaryKrigingGrid, krigePoint, type KrigingOptions } from './kriging';
+export {
+	ordinaryKrigingGrid,
+	krigingRows,
+	krigePoint,
+	type KrigingOptions,
+	type KrigingRows
+} from './kriging';
 export { crossValidate, crossValidationResiduals, type CrossValidationResidual } from './crossval';
 export { assertNoExactDuplicates, mergeDuplicateSamples } from './duplicates';
 export { maskByDistance } from './mask';

@@ -2,8 +2,9 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../foundation/errors';
 import { SingularSystemError } from './errors';
-import { krigePoint, ordinaryKrigingGrid } from './kriging';
+import { krigePoint, krigingRows, ordinaryKrigingGrid } from './kriging';
 import { loadFixture } from './fixtures/load';
+import { createRandom } from '../foundation/random';
 import type { GridSpec, Sample, Variogram } from './types';
 
 interface GstatCase {
@@ -216,6 +217,52 @@ describe('kriging input errors and singular systems', () => {
 		const gau: Variogram = { model: 'gaussian', nugget: 0, partialSill: 50, rangeM: 3000 };
 		expect(() => ordinaryKrigingGrid(near, grid, gau)).toThrow(SingularSystemError);
 		expect(() => ordinaryKrigingGrid(near, grid, gau, { maxNeighbours: 4 })).toThrow(
+			SingularSystemError
+		);
+	});
+});
+
+describe('krigingRows: any split of the rows gives the same grid', () => {
+	it('strips in any order equal one pass, bit for bit (neighbour sets and factors reused)', () => {
+		const rnd = createRandom(12).uniform;
+		const samples: Sample[] = Array.from({ length: 300 }, () => ({
+			x: rnd() * 10_000,
+			y: rnd() * 10_000,
+			value: 60 + 20 * rnd(),
+			sigma: rnd() < 0.5 ? 1 + 3 * rnd() : undefined
+		}));
+		const g: GridSpec = { x0: 0, y0: 0, dx: 250, dy: 250, nx: 40, ny: 40 };
+		for (const v of [
+			{ model: 'gaussian', nugget: 0, partialSill: 50, rangeM: 4000 },
+			{ model: 'spherical', nugget: 2, partialSill: 40, rangeM: 3000 }
+		] as Variogram[]) {
+			const whole = ordinaryKrigingGrid(samples, g, v, { maxNeighbours: 12 });
+			const value = new Float64Array(g.nx * g.ny);
+			const sigma = new Float64Array(g.nx * g.ny);
+			const rows = krigingRows(samples, g, v, { maxNeighbours: 12 });
+			for (const [j0, j1] of [
+				[30, 40],
+				[0, 7],
+				[20, 30],
+				[7, 20]
+			])
+				rows(j0, j1, value, sigma);
+			expect(value).toEqual(whole.value);
+			expect(sigma).toEqual(whole.sigma);
+		}
+	});
+});
+
+describe('singular systems in small value units', () => {
+	it('reports near-duplicates 1 mm apart when the sill is far below 1, as the LU solver alone did', () => {
+		// Values in W/m² rather than mW/m²: sill 5e-5. The bordered matrix LU sees holds 1s.
+		const tiny: Variogram = { model: 'gaussian', nugget: 0, partialSill: 5e-5, rangeM: 3000 };
+		const near = [
+			...few.map((s) => ({ ...s, value: s.value / 1000 })),
+			{ x: 1000 + 1e-3, y: 200, value: 0.07 }
+		];
+		const g: GridSpec = { x0: 0, y0: 0, dx: 500, dy: 500, nx: 4, ny: 4 };
+		expect(() => ordinaryKrigingGrid(near, g, tiny, { maxNeighbours: 4 })).toThrow(
 			SingularSystemError
 		);
 	});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cholesky, invert, luFactor, luSolve } from './linalg';
+import { cholesky, choleskyLower, choleskySolve, invert, luFactor, luSolve } from './linalg';
 import { createRandom } from '../foundation/random';
 
 describe('LU with partial pivoting (Golub & Van Loan 2013, Alg. 3.4.1)', () => {
@@ -37,5 +37,24 @@ describe('Cholesky', () => {
 		expect(cholesky(a, 2)).toBe(true);
 		expect(Array.from(a)).toEqual([2, 0, 1, Math.sqrt(2)]);
 		expect(cholesky(Float64Array.from([1, 2, 2, 1]), 2)).toBe(false);
+	});
+});
+
+describe('choleskyLower / choleskySolve (Golub & Van Loan 2013, Alg. 4.2.1)', () => {
+	it('solves an SPD system (hand-checked: A = [[4, 2, 0], [2, 5, 1], [0, 1, 3]], x = [1, −1, 2])', () => {
+		const a = Float64Array.from([4, 2, 0, 2, 5, 1, 0, 1, 3]);
+		// b = A x = [2, −1, 5]
+		const b = Float64Array.from([2, -1, 5]);
+		expect(choleskyLower(a, 3)).toBe(true);
+		expect(a[0]).toBe(2); // l₁₁ = √4
+		choleskySolve(a, 3, b);
+		expect(b[0]).toBeCloseTo(1, 12);
+		expect(b[1]).toBeCloseTo(-1, 12);
+		expect(b[2]).toBeCloseTo(2, 12);
+	});
+
+	it('fails on a singular or indefinite matrix, as luFactor does', () => {
+		expect(choleskyLower(Float64Array.from([1, 1, 1, 1]), 2)).toBe(false);
+		expect(choleskyLower(Float64Array.from([1, 2, 2, 1]), 2)).toBe(false);
 	});
 });

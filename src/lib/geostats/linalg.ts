@@ -116,3 +116,50 @@ export function invert(a: Float64Array, n: number): Float64Array | null {
 	}
 	return inv;
 }
+
+/**
+ * Cholesky factorisation A = L Lᵀ in place into the lower triangle (the upper triangle is left
+ * as it was), for the kriging covariance matrices: the same pivot test as luFactor (a pivot,
+ * here l_jj², below SINGULAR_TOLERANCE × max(max|a|, minScale) fails), so a caller can fall back
+ * to LU. Half the work of LU and no pivot search (Golub & Van Loan 2013, Alg. 4.2.1).
+ */
+export function choleskyLower(a: Float64Array, n: number, minScale = 0): boolean {
+	let scale = minScale;
+	for (let k = 0; k < n * n; k++) {
+		const v = Math.abs(a[k]);
+		if (v > scale) scale = v;
+	}
+	if (!(scale > 0) || !Number.isFinite(scale)) return false;
+	const tol = SINGULAR_TOLERANCE * scale;
+	for (let j = 0; j < n; j++) {
+		const rj = j * n;
+		let d = a[rj + j];
+		for (let k = 0; k < j; k++) d -= a[rj + k] * a[rj + k];
+		if (!(d > tol)) return false;
+		const l = Math.sqrt(d);
+		a[rj + j] = l;
+		const inv = 1 / l;
+		for (let i = j + 1; i < n; i++) {
+			const ri = i * n;
+			let s = a[ri + j];
+			for (let k = 0; k < j; k++) s -= a[ri + k] * a[rj + k];
+			a[ri + j] = s * inv;
+		}
+	}
+	return true;
+}
+
+/** Solves L Lᵀ x = b in place (b becomes x) with the factor from choleskyLower. */
+export function choleskySolve(l: Float64Array, n: number, b: Float64Array): void {
+	for (let r = 0; r < n; r++) {
+		const rr = r * n;
+		let s = b[r];
+		for (let c = 0; c < r; c++) s -= l[rr + c] * b[c];
+		b[r] = s / l[rr + r];
+	}
+	for (let r = n - 1; r >= 0; r--) {
+		let s = b[r];
+		for (let c = r + 1; c < n; c++) s -= l[c * n + r] * b[c];
+		b[r] = s / l[r * n + r];
+	}
+}

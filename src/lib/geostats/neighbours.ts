@@ -33,6 +33,14 @@ export class NeighbourIndex {
 		this.coords = this.tree.coords;
 	}
 
+	/**
+	 * The point indices in the tree's storage order: a k-d sort, so points that follow each
+	 * other are mostly close together (visiting points in this order keeps neighbour sets alike).
+	 */
+	spatialOrder(): Int32Array {
+		return this.size === 0 ? new Int32Array(0) : Int32Array.from(this.ids);
+	}
+
 	/** Indices of all points within radiusM (inclusive) of (x, y). */
 	within(x: number, y: number, radiusM: number): number[] {
 		if (this.size === 0) return [];

@@ -3,15 +3,17 @@ import {
 	defaultLagClasses,
 	empiricalVariogram,
 	fitVariogramToPoints,
-	inverseDistanceGrid,
+	idwRows,
+	krigingRows,
 	maskByDistance,
 	mergeDuplicateSamples,
-	ordinaryKrigingGrid,
 	type GridSpec,
 	type Sample,
 	type Variogram,
 	type VariogramPoint
 } from '../geostats';
+import { HIT_D2 } from '../geostats/idw';
+import { NeighbourIndex } from '../geostats/neighbours';
 import { DEFAULT_KRIGING_NEIGHBOURS, type GridRequest } from './request';
 
 /**
@@ -145,48 +147,91 @@ function chooseVariogram(
 	};
 }
 
-/** Leave-one-out IDW: each site estimated from the others (the nearest maxNeighbours, or all). */
+/**
+ * Leave-one-out IDW: each site estimated from the others (the nearest maxNeighbours, or all),
+ * with inverseDistanceGrid's weights 1/dᵖ = (d²)^(−p/2) and its hit rule (another site within
+ * √HIT_D2 gives its value; several give their mean). With every site this is n² pairs, so the
+ * loop is flat typed arrays with 1/d² for power 2, and the nearest sites come from the k-d tree.
+ */
 function idwCrossValidation(samples: Sample[], power: number, k?: number): CrossValidation {
 	const pairs: [number, number][] = [];
 	const n = samples.length;
 	const xs = Float64Array.from(samples, (s) => s.x);
 	const ys = Float64Array.from(samples, (s) => s.y);
 	const zs = Float64Array.from(samples, (s) => s.value);
-	// Weights from squared distances, 1/dᵖ = (d²)^(−p/2), as inverseDistanceGrid does: with every
-	// site this is n² pairs, and Math.hypot, powers and arrays per site made it most of the job.
 	const half = power / 2;
-	const d2 = new Float64Array(n);
-	const order = new Int32Array(n);
+	const useNearest = k !== undefined && k < n - 1;
+	const index = useNearest ? new NeighbourIndex(xs, ys) : null;
+	const idx = new Int32Array(useNearest ? k + 1 : 0);
+	const d2s = new Float64Array(useNearest ? k + 1 : 0);
 	for (let i = 0; i < n; i++) {
 		const xi = xs[i];
 		const yi = ys[i];
-		for (let q = 0; q < n; q++) {
-			const ex = xs[q] - xi;
-			const ey = ys[q] - yi;
-			d2[q] = ex * ex + ey * ey;
-		}
 		let sw = 0;
 		let swz = 0;
-		let exact: number | null = null;
-		const use = (q: number) => {
-			if (d2[q] === 0) {
-				exact = zs[q];
-				return false;
+		let hits = 0;
+		let hitSum = 0;
+		if (index) {
+			const found = index.nearest(xi, yi, k! + 1, Infinity, idx, d2s);
+			let used = 0;
+			for (let f = 0; f < found && used < k!; f++) {
+				const q = idx[f];
+				if (q === i) continue;
+				used++;
+				const d2 = d2s[f];
+				if (d2 < HIT_D2) {
+					hits++;
+					hitSum += zs[q];
+				} else {
+					const w = power === 2 ? 1 / d2 : Math.pow(d2, -half);
+					sw += w;
+					swz += w * zs[q];
+				}
 			}
-			const w = power === 2 ? 1 / d2[q] : Math.pow(d2[q], -half);
-			sw += w;
-			swz += w * zs[q];
-			return true;
-		};
-		if (k !== undefined && k < n - 1) {
-			for (let q = 0; q < n; q++) order[q] = q;
-			const sorted = Array.from(order).sort((a, b) => d2[a] - d2[b]);
-			const ids = sorted.filter((q) => q !== i).slice(0, k);
-			for (const q of ids) if (!use(q)) break;
-		} else {
-			for (let q = 0; q < n; q++) if (q !== i && !use(q)) break;
+		} else if (power === 2) {
+			// The common case, n² pairs: no branch in the loops (site i itself is skipped by the
+			// two ranges); a hit (d² < HIT_D2) makes Σw ≥ 1/HIT_D2, and such a site is redone
+			// by the careful loop below, as in inverseDistanceGrid's kernel.
+			for (let q = 0; q < i; q++) {
+				const ex = xs[q] - xi;
+				const ey = ys[q] - yi;
+				const w = 1 / (ex * ex + ey * ey);
+				sw += w;
+				swz += w * zs[q];
+			}
+			for (let q = i + 1; q < n; q++) {
+				const ex = xs[q] - xi;
+				const ey = ys[q] - yi;
+				const w = 1 / (ex * ex + ey * ey);
+				sw += w;
+				swz += w * zs[q];
+			}
+			if (sw < 1 / HIT_D2) {
+				pairs.push([zs[i], swz / sw]);
+				continue;
+			}
+			sw = 0;
+			swz = 0;
 		}
-		pairs.push([zs[i], exact ?? swz / sw]);
+		if (!index) {
+			for (let q = 0; q < n; q++) {
+				const ex = xs[q] - xi;
+				const ey = ys[q] - yi;
+				const d2 = ex * ex + ey * ey;
+				if (d2 < HIT_D2) {
+					// Site i itself (d = 0) is left out; another site this close is a hit.
+					if (q !== i) {
+						hits++;
+						hitSum += zs[q];
+					}
+				} else {
+					const w = power === 2 ? 1 / d2 : Math.pow(d2, -half);
+					sw += w;
+					swz += w * zs[q];
+				}
+			}
+		}
+		pairs.push([zs[i], hits > 0 ? hitSum / hits : swz / sw]);
 	}
 	return summarise(pairs, null);
 }
@@ -252,23 +297,27 @@ export async function computeGrid(
 	}
 	await onProgress(0.15);
 
+	// Set-up (checks, k-d tree, solver buffers) once; the strips only compute their rows.
+	const value64 = new Float64Array(cells);
+	const sigma64 = sigma ? new Float64Array(cells) : null;
+	const rows =
+		req.method === 'kriging' ? krigingRows(samples, grid, variogram!, { maxNeighbours: k }) : null;
+	const idw =
+		req.method === 'kriging'
+			? null
+			: idwRows(samples, grid, { power: req.power, maxNeighbours: k });
 	for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
-		const rows = Math.min(STRIP_ROWS, grid.ny - j0);
-		const strip: GridSpec = { ...grid, y0: grid.y0 + j0 * grid.dy, ny: rows };
-		if (req.method === 'kriging') {
-			const r = ordinaryKrigingGrid(samples, strip, variogram!, { maxNeighbours: k });
-			value.set(r.value, j0 * grid.nx);
-			sigma!.set(r.sigma, j0 * grid.nx);
-		} else {
-			const r = inverseDistanceGrid(samples, strip, { power: req.power, maxNeighbours: k });
-			value.set(r, j0 * grid.nx);
-		}
-		await onProgress(0.15 + (0.8 * (j0 + rows)) / grid.ny);
+		const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
+		if (rows) rows(j0, j1, value64, sigma64!);
+		else idw!(j0, j1, value64);
+		await onProgress(0.15 + (0.8 * j1) / grid.ny);
 	}
+	value.set(value64);
+	if (sigma) sigma.set(sigma64!);
 
 	let maskedCells = 0;
 	if (req.maskDistanceM !== undefined) {
-		const masked = maskByDistance(Float64Array.from(value), grid, samples, req.maskDistanceM);
+		const masked = maskByDistance(value64, grid, samples, req.maskDistanceM);
 		for (let c = 0; c < cells; c++) {
 			if (Number.isNaN(masked[c])) {
 				value[c] = NaN;

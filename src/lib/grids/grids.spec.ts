@@ -144,6 +144,23 @@ describe('computeGrid', () => {
 		);
 		expect(one.crossValidation.pairs.map(([, p]) => p)).toEqual([20, 10, 20]);
 	});
+	it('IDW cross-validation: a site within √1e-13 m of another takes its value (GDAL invdist hit rule)', async () => {
+		const near = [
+			{ x: 0, y: 0, value: 10 },
+			{ x: 1000, y: 1e-7, value: 20 },
+			{ x: 1000, y: 0, value: 30 },
+			{ x: 3000, y: 0, value: 40 },
+			// 1 m away: weighed as 1/d² against the hit, it would move the estimate by ~1e-13.
+			{ x: 1001, y: 0, value: 50 }
+		];
+		const g = { x0: 0, y0: 0, dx: 1000, dy: 1000, nx: 1, ny: 1 };
+		const out = await computeGrid(near, g, gridRequestSchema.parse({ ...base, method: 'idw' }));
+		const predicted = out.crossValidation.pairs.map(([, p]) => p);
+		expect(predicted[1]).toBe(30);
+		expect(predicted[2]).toBe(20);
+		expect(predicted[0]).toBeGreaterThan(10);
+		expect(predicted[0]).toBeLessThan(40);
+	});
 	it('uses a user variogram as given', async () => {
 		const req = gridRequestSchema.parse({
 			...base,
