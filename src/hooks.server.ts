@@ -14,6 +14,7 @@ import {
 } from '$lib/server/database-down';
 import { failStaleImports } from '$lib/server/imports/stale';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
+import { configureMapIndex, loadAll as loadMapIndex } from '$lib/server/map-index/store';
 import { workGridQueue } from '$lib/server/jobs/grid-queue';
 import { startEmbargoRelease } from '$lib/server/jobs/embargo-release';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
@@ -35,6 +36,12 @@ export const init: ServerInit = async () => {
 		await failStaleImports(getDb())
 			.then((stale) => stale && console.warn(`${stale} interrupted import(s) marked as failed`))
 			.catch((err) => console.warn('could not check for interrupted imports:', err.message));
+	}
+	if (!building) {
+		// The map's in-memory site index loads in the background (SQL answers until then); on its
+		// own, so a failure here blocks nothing else.
+		configureMapIndex({ maxSites: config().THERMALITH_MAP_INDEX_MAX_SITES });
+		loadMapIndex(getDb()).catch((err) => console.warn('map index not loaded:', err.message));
 	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
 		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports) are taken by this process; a queue that is not reachable yet is retried
