@@ -135,7 +135,7 @@ export async function mapCells(
  * Filtered cells from the in-memory site index (server/map-index): loaded, current datasets from
  * memory, the visible datasets not loaded (or changed since) from their sites, added up.
  */
-async function indexedCells(
+export async function indexedCells(
 	db: Db,
 	viewer: Viewer,
 	box: BoundingBox,
