@@ -3,7 +3,7 @@ import { HISTOGRAM_BIN_MWM2, HISTOGRAM_MAX_MWM2, type RegionStatistics } from '$
 import { ringBounds, type Region } from '$lib/map/region-shape';
 import { QUALITY_CLASSES, type QualityClass } from '$lib/sites/quality';
 import { percentilesInPlace } from '$lib/thermal/percentile';
-import { forEachInBox, NO_QUALITY, type SiteBlock, type SiteTest } from './block';
+import { NO_QUALITY, selectInBox, type SiteBlock, type SiteTest } from './block';
 
 /**
  * The sites of a region as its statistics need them: every heat-flow value and the count per
@@ -45,19 +45,22 @@ export function sampleBlocks(
 	const box = region.kind === 'bbox' ? region.box : ringBounds(region.ring);
 	const polygon = region.kind === 'polygon' ? [region.ring] : null;
 	const point = [0, 0];
+	const last = QUALITY_CLASSES.length;
 	for (const b of blocks) {
-		forEachInBox(b, box, test, (i) => {
+		const [selected, n] = selectInBox(b, box, test);
+		for (let k = 0; k < n; k++) {
+			const i = selected[k];
 			if (polygon) {
 				point[0] = b.lon[i];
 				point[1] = b.lat[i];
-				if (pointInPolygon(point, polygon) === false) return;
+				if (pointInPolygon(point, polygon) === false) continue;
 			}
 			into.count++;
 			const q = b.quality[i];
-			into.quality[q === NO_QUALITY ? QUALITY_CLASSES.length : q]++;
+			into.quality[q === NO_QUALITY ? last : q]++;
 			const v = b.heatFlow[i];
 			if (v === v) into.values.push(v);
-		});
+		}
 	}
 	return into;
 }
