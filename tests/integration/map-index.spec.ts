@@ -3,7 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ANONYMOUS, type Viewer } from '../../src/lib/server/access';
 import { createDb } from '../../src/lib/server/db/client';
 import {
+	accessGrant,
 	dataset,
+	organisation,
 	site,
 	temperatureLog,
 	type NewDataset,
@@ -35,6 +37,7 @@ import { testEnv } from './env';
  * - `pub` (Korvald, published public) and `lind` (Lindmark, published public): 60 sites each;
  * - `priv` (private) and `emb` (embargoed to 2999), Korvald: 30 sites each at places of the public
  *   ones, all with heat flow 500, so a hidden site in an answer shows as a 500.
+ * A grantee organisation of this run holds a grant on `emb` (not on `priv`).
  * Every attribute a filter reads varies (quality with none, method, heat flow with none, year with
  * none, flags, temperature logs). The same calls are made with the index loaded and with the index
  * turned off (THERMALITH_MAP_INDEX_MAX_SITES=0, all SQL), and must answer the same.
@@ -45,10 +48,12 @@ const BOX = { west: 60, south: -32, east: 66, north: -26 };
 const { db, client: sql } = createDb(testEnv.databaseUrl(), { max: 2 });
 const datasets: Record<'pub' | 'lind' | 'priv' | 'emb', string> = {} as never;
 const KORVALD = 'org-korvald-survey';
+const GRANTEE_ORG = `org-idx-${run}`;
 const viewers: Record<string, Viewer> = {
 	anonymous: ANONYMOUS,
 	member: { ...ANONYMOUS, userId: `idx-${run}-m`, roles: { [KORVALD]: 'viewer' } },
-	outsider: { ...ANONYMOUS, userId: `idx-${run}-o`, roles: { 'org-lindmark-thermics': 'owner' } }
+	outsider: { ...ANONYMOUS, userId: `idx-${run}-o`, roles: { 'org-lindmark-thermics': 'owner' } },
+	grantee: { ...ANONYMOUS, userId: `idx-${run}-g`, roles: { [GRANTEE_ORG]: 'viewer' } }
 };
 
 const filterSets: Record<string, Partial<SiteFilters>> = {
@@ -118,6 +123,10 @@ beforeAll(async () => {
 		for (let i = 0; i < 60; i++) rows.push(invented(key, i));
 	for (const key of ['priv', 'emb'] as const)
 		for (let i = 0; i < 30; i++) rows.push(invented(key, i));
+	await db
+		.insert(organisation)
+		.values({ id: GRANTEE_ORG, name: `Map index grantee ${run}`, slug: `map-index-${run}` });
+	await db.insert(accessGrant).values({ datasetId: datasets.emb, organisationId: GRANTEE_ORG });
 	const inserted = await db.insert(site).values(rows).returning({ id: site.id, code: site.code });
 	// Temperature logs on every sixth site (public and hidden).
 	await db
@@ -136,6 +145,7 @@ afterAll(async () => {
 	configureMapIndex({ maxSites: 5_000_000 });
 	clearMapIndex();
 	await db.delete(dataset).where(inArray(dataset.id, Object.values(datasets)));
+	await db.delete(organisation).where(eq(organisation.id, GRANTEE_ORG));
 	await sql.end();
 });
 
@@ -205,6 +215,27 @@ describe('the in-memory map index answers as SQL does', () => {
 		const member = await regionStatistics(db, viewers.member, rect, NO_FILTERS);
 		expect(member.count).toBe(180);
 		expect(member.maxMWm2).toBe(500);
+		// The grantee sees the embargoed dataset, not the private one.
+		expect((await regionStatistics(db, viewers.grantee, rect, NO_FILTERS)).count).toBe(150);
+	});
+
+	it('decides per request which datasets count: a retired dataset leaves at once', async () => {
+		const quality = { ...NO_FILTERS, quality: ['constrained' as const] };
+		const before = await countMatchingSites(db, ANONYMOUS, quality);
+		const inRegion = (await regionStatistics(db, ANONYMOUS, rect, quality)).count;
+		await db.update(dataset).set({ status: 'retired' }).where(eq(dataset.id, datasets.lind));
+		try {
+			// No site changed, so no block is outdated; the dataset no longer counts all the same.
+			expect(await allInMemory(ANONYMOUS)).toEqual([]);
+			const after = await countMatchingSites(db, ANONYMOUS, quality);
+			expect(after).toBe(await fromSql(() => countMatchingSites(db, ANONYMOUS, quality)));
+			expect(after).toBeLessThan(before);
+			const stats = await regionStatistics(db, ANONYMOUS, rect, quality);
+			expect(stats.count).toBeLessThan(inRegion);
+			expect(stats).toEqual(await fromSql(() => regionStatistics(db, ANONYMOUS, rect, quality)));
+		} finally {
+			await db.update(dataset).set({ status: 'published' }).where(eq(dataset.id, datasets.lind));
+		}
 	});
 });
 
