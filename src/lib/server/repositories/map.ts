@@ -287,9 +287,10 @@ export async function regionStatistics(
 	filters: SiteFilters
 ): Promise<RegionStatistics> {
 	await assertValidRegion(db, region);
-	if (useIndex(filters)) {
-		// Values of loaded datasets from memory, of the others from their sites; summarised together.
-		const plan = await planIndex(db, viewer, filters);
+	// Values of loaded datasets from memory, of the others from their sites, summarised together;
+	// with nothing loaded yet (just after start) the aggregate SQL below is cheaper.
+	const plan = useIndex(filters) ? await planIndex(db, viewer, filters) : null;
+	if (plan && plan.blocks.length > 0) {
 		const sample = sampleBlocks(plan.blocks, region, siteTest(filters));
 		if (plan.sqlDatasetIds.length) {
 			const rows = await db
