@@ -13,6 +13,7 @@ import {
 	isDatabaseUnavailable
 } from '$lib/server/database-down';
 import { jobs, stopJobs } from '$lib/server/jobs/boss';
+import { configureMapIndex, loadAll as loadMapIndex } from '$lib/server/map-index/store';
 import { workGridQueue } from '$lib/server/jobs/grid-queue';
 import { startEmbargoRelease } from '$lib/server/jobs/embargo-release';
 import { startHousekeeping } from '$lib/server/jobs/housekeeping';
@@ -30,6 +31,12 @@ import { apiPreflight, isApiPath, withApiCors } from '$lib/server/api/cors';
 /** Fail at boot, naming the variable, rather than on the first request. */
 export const init: ServerInit = async () => {
 	config();
+	if (!building) {
+		// The map's in-memory site index loads in the background (SQL answers until then); on its
+		// own, so a failure here blocks nothing else.
+		configureMapIndex({ maxSites: config().THERMALITH_MAP_INDEX_MAX_SITES });
+		loadMapIndex(getDb()).catch((err) => console.warn('map index not loaded:', err.message));
+	}
 	if (!building && config().THERMALITH_WORKERS === 'on') {
 		// Queued jobs (mail, the hourly housekeeping, embargo release, grids and imports; the import
 		// worker first resumes or ends imports left running) are taken by this process. Each worker

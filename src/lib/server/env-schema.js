@@ -48,6 +48,8 @@ export const envSchema = z
 			.default(50 * 1024 * 1024),
 		// "off" on web servers when separate worker instances take the queued jobs (see README).
 		THERMALITH_WORKERS: z.enum(['on', 'off']).default('on'),
+		// Most sites the map's in-memory index holds per process (41 bytes each); 0 turns it off.
+		THERMALITH_MAP_INDEX_MAX_SITES: z.coerce.number().int().min(0).default(5_000_000),
 		THERMALITH_PROFILE: z
 			.enum(['dev', 'start', 'test', 'bench', 'production'])
 			.default('production')

@@ -16,6 +16,16 @@ describe('one environment schema for the app and the scripts', () => {
 	it('accepts a usable environment and fills in defaults', () => {
 		expect(envProblems(usable)).toEqual([]);
 		expect(parseEnv(usable).THERMALITH_WORKERS).toBe('on');
+		expect(parseEnv(usable).THERMALITH_MAP_INDEX_MAX_SITES).toBe(5_000_000);
+	});
+
+	it('takes a map index cap of 0 (off) and refuses a negative one', () => {
+		expect(
+			parseEnv({ ...usable, THERMALITH_MAP_INDEX_MAX_SITES: '0' }).THERMALITH_MAP_INDEX_MAX_SITES
+		).toBe(0);
+		expect(envProblems({ ...usable, THERMALITH_MAP_INDEX_MAX_SITES: '-1' })[0]).toMatch(
+			/^THERMALITH_MAP_INDEX_MAX_SITES:/
+		);
 	});
 
 	it('names every bad variable, including the ones only the scripts used to check', () => {

@@ -27,6 +27,10 @@ import {
 	type CellParts
 } from './map-cells';
 import { siteFilterConditions, visibleSitesInBox, type BoundingBox } from './sites';
+import { indexCanAnswer, siteTest } from '../map-index/block';
+import { blockCellParts, blockCount } from '../map-index/cells';
+import { addSite, sampleBlocks, summarise } from '../map-index/region-stats';
+import { mapIndexEnabled, planIndex } from '../map-index/store';
 
 /**
  * The map's data at scale. Every query here joins `dataset` and adds visibleOnMaps (the one map
@@ -128,6 +132,28 @@ export async function mapCells(
 }
 
 /**
+ * Filtered cells from the in-memory site index (server/map-index): loaded, current datasets from
+ * memory, the visible datasets not loaded (or changed since) from their sites, added up.
+ */
+export async function indexedCells(
+	db: Db,
+	viewer: Viewer,
+	box: BoundingBox,
+	zoom: number,
+	filters: SiteFilters
+): Promise<MapCell[]> {
+	const plan = await planIndex(db, viewer, filters);
+	const memory = blockCellParts(plan.blocks, box, zoom, siteTest(filters));
+	const live = plan.sqlDatasetIds.length
+		? await liveParts(db, viewer, box, zoom, filters, plan.sqlDatasetIds)
+		: [];
+	return combineParts(memory, live);
+}
+
+/** Whether a filtered request is answered with the in-memory site index. */
+const useIndex = (filters: SiteFilters) => mapIndexEnabled() && indexCanAnswer(filters);
+
+/**
  * Whole cells covering the box from the pre-built cells of the visible datasets, plus the cells
  * of stale datasets from their sites (map-cells.ts); the stale list is read once so each dataset
  * is counted by exactly one of the two.
@@ -152,7 +178,8 @@ async function prebuiltCells(
 /**
  * What the map draws for a view: single sites from SITE_ZOOM when the view holds at most
  * MAX_SITES of them, otherwise cells. Up to PREBUILT_MAX_ZOOM without site filters the cells are
- * the pre-built ones, asked first: a crowded view then costs no site query at all.
+ * the pre-built ones, asked first: a crowded view then costs no site query at all. With site
+ * filters the in-memory index answers the cells first, for the same reason.
  */
 export async function mapData(
 	db: Db,
@@ -172,6 +199,11 @@ export async function mapData(
 	if (prebuiltCanAnswer(zoom, filters)) {
 		cells = await prebuiltCells(db, viewer, box, zoom, filters);
 		// Whole cells hold at least the sites of the view: more than MAX_SITES means cells.
+		if (zoom < SITE_ZOOM || cells.reduce((n, c) => n + c.count, 0) > MAX_SITES)
+			return cellsAnswer(cells);
+	} else if (useIndex(filters)) {
+		cells = await indexedCells(db, viewer, box, zoom, filters);
+		// These cells hold exactly the sites of the view.
 		if (zoom < SITE_ZOOM || cells.reduce((n, c) => n + c.count, 0) > MAX_SITES)
 			return cellsAnswer(cells);
 	}
@@ -198,12 +230,20 @@ export async function countMatchingSites(
 		const cells = await prebuiltCells(db, viewer, world, 0, filters);
 		return cells.reduce((n, c) => n + c.count, 0);
 	}
-	const [row] = await db
-		.select({ n: count() })
-		.from(site)
-		.innerJoin(dataset, eq(site.datasetId, dataset.id))
-		.where(where(viewer, filters));
-	return row.n;
+	const sqlCount = async (datasetIds?: string[]) => {
+		const [row] = await db
+			.select({ n: count() })
+			.from(site)
+			.innerJoin(dataset, eq(site.datasetId, dataset.id))
+			.where(
+				and(where(viewer, filters), datasetIds ? inArray(site.datasetId, datasetIds) : undefined)
+			);
+		return row.n;
+	};
+	if (!useIndex(filters)) return sqlCount();
+	const plan = await planIndex(db, viewer, filters);
+	const memory = blockCount(plan.blocks, siteTest(filters));
+	return memory + (plan.sqlDatasetIds.length ? await sqlCount(plan.sqlDatasetIds) : 0);
 }
 
 /** Visible sites whose code or name starts with `prefix` (case-insensitive), by code. */
@@ -247,6 +287,23 @@ export async function regionStatistics(
 	filters: SiteFilters
 ): Promise<RegionStatistics> {
 	await assertValidRegion(db, region);
+	// Values of loaded datasets from memory, of the others from their sites, summarised together;
+	// with nothing loaded yet (just after start) the aggregate SQL below is cheaper.
+	const plan = useIndex(filters) ? await planIndex(db, viewer, filters) : null;
+	if (plan && plan.blocks.length > 0) {
+		const sample = sampleBlocks(plan.blocks, region, siteTest(filters));
+		if (plan.sqlDatasetIds.length) {
+			const rows = await db
+				.select({ qualityClass: site.qualityClass, hf: site.heatFlowMWm2 })
+				.from(site)
+				.innerJoin(dataset, eq(site.datasetId, dataset.id))
+				.where(
+					and(regionWhere(viewer, filters, region), inArray(site.datasetId, plan.sqlDatasetIds))
+				);
+			for (const r of rows) addSite(sample, r.qualityClass, r.hf);
+		}
+		return summarise(sample);
+	}
 	const hf = site.heatFlowMWm2;
 	const condition = regionWhere(viewer, filters, region);
 	const bin = sql<number>`least(floor(${hf} / ${sql.raw(String(HISTOGRAM_BIN_MWM2))}), ${sql.raw(String(HISTOGRAM_MAX_MWM2 / HISTOGRAM_BIN_MWM2))})::int`;

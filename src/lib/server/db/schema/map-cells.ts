@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+	bigint,
 	doublePrecision,
 	integer,
 	pgTable,
@@ -38,4 +39,13 @@ export const mapCellStale = pgTable('map_cell_stale', {
 	markedAt: timestamp({ withTimezone: true })
 		.notNull()
 		.default(sql`now()`)
+});
+
+/**
+ * A change counter per dataset (migration 0016): bumped from one sequence by the triggers on
+ * site and temperature_log; the map's in-memory site index (server/map-index) compares it.
+ */
+export const mapSiteVersion = pgTable('map_site_version', {
+	datasetId: uuid().primaryKey(),
+	version: bigint({ mode: 'number' }).notNull()
 });
