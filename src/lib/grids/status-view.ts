@@ -38,6 +38,8 @@ export interface GridStatusView {
 		contours: string;
 		temperatureAtDepth: string;
 		isothermDepth: string;
+		temperatureAtDepthPng: string;
+		isothermDepthPng: string;
 	} | null;
 	caution: string;
 	atDepthAssumptions: string;
