@@ -106,11 +106,13 @@ describe('heat-flow grid on the map', () => {
 			.toBe(true);
 		expect(JSON.parse((await stats.getAttribute('data-polygon'))!)).toHaveLength(5);
 		await expect(stats.textContent()).resolves.toContain('In the drawn polygon');
+		await legend.scrollIntoViewIfNeeded();
 		await screenshot(page, 'grid-overlay-1280');
 
 		await page.getByTestId('sigma-toggle').check();
 		expect(await overlayShown(page, 'sigma')).toMatch(/sigma\.png$/);
 		await expect(legend.textContent()).resolves.toContain('Kriging standard error σ (mW/m²)');
+		await legend.scrollIntoViewIfNeeded();
 		await screenshot(page, 'grid-sigma-1280');
 
 		// The depth of 150 °C: its own legend in km with the not-reached class, and what it assumes.
@@ -126,6 +128,7 @@ describe('heat-flow grid on the map', () => {
 		await expect(page.getByTestId('grid-legend-assumptions').textContent()).resolves.toMatch(
 			/Model estimate\..*three-layer/
 		);
+		await legend.scrollIntoViewIfNeeded();
 		await screenshot(page, 'grid-isotherm-depth-1280');
 
 		// A bad isotherm is named and the drawn overlay stays; a good one redraws, as does P90.

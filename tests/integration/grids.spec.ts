@@ -240,6 +240,16 @@ describe('a kriging grid requested by an anonymous visitor', () => {
 		expect((await anonymous.get(`${base}/temperature-at-depth.png?depthM=-5`)).status).toBe(400);
 	});
 
+	it('an IDW grid has no σ, so no P10/P90 at depth: a sentence, not an empty overlay', async () => {
+		const { body } = await post(anonymous, { ...REQUEST, method: 'idw', cellSizeM: 20_000 });
+		expect((await waitForGrid(anonymous, body.id)).body.status).toBe('done');
+		const p90 = await anonymous.get(`/api/v1/grids/${body.id}/isotherm-depth.png?band=p90`);
+		expect(p90.status).toBe(400);
+		expect((await p90.json()).error.message).toMatch(/P50 only/);
+		const p50 = await anonymous.get(`/api/v1/grids/${body.id}/isotherm-depth.png?band=p50`);
+		expect(p50.headers.get('content-type')).toBe('image/png');
+	});
+
 	it('gives region statistics: over the whole grid, the mean and median of its cells; P10 ≤ P50 ≤ P90', async () => {
 		const csv = (await (await anonymous.get(`/api/v1/grids/${id}/grid.csv`)).text()).split('\n');
 		const cells = csv
@@ -378,11 +388,6 @@ describe('bad grid requests', () => {
 	it('an unknown download name or grid id: 404', async () => {
 		const { body } = await post(anonymous, { ...REQUEST, method: 'idw', cellSizeM: 20_000 });
 		expect((await anonymous.get(`/api/v1/grids/${body.id}/secrets.txt`)).status).toBe(404);
-		// IDW has no σ, so no P10/P90 at depth: a sentence, not an empty overlay.
-		await waitForGrid(anonymous, body.id);
-		const p90 = await anonymous.get(`/api/v1/grids/${body.id}/isotherm-depth.png?band=p90`);
-		expect(p90.status).toBe(400);
-		expect((await p90.json()).error.message).toMatch(/P50 only/);
 		expect((await anonymous.get(`/api/v1/grids/${crypto.randomUUID()}`)).status).toBe(404);
 	});
 });
