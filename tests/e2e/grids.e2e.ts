@@ -41,6 +41,8 @@ async function overlayShown(page: Page, kind: string) {
 }
 
 describe('heat-flow grid on the map', () => {
+	// Two grids (the second with an edited variogram), four overlays and a download: a longer
+	// timeout than the default, for a loaded machine.
 	it('grids a drawn polygon by kriging: progress, overlays with legends (σ, isotherm depth, temperature at depth), variogram, download', async () => {
 		const context = await browser.newContext({
 			viewport: { width: 1280, height: 800 },
@@ -177,6 +179,7 @@ describe('heat-flow grid on the map', () => {
 		await expect(variogram.getByTestId('variogram-message').textContent()).resolves.toMatch(
 			/greater than the nugget/
 		);
+		await variogram.getByLabel('Model', { exact: true }).selectOption('spherical');
 		await variogram.getByLabel('Nugget', { exact: true }).fill('10');
 		await variogram.getByLabel('Sill', { exact: true }).fill('150');
 		await variogram.getByRole('button', { name: 'Recompute with this variogram' }).click();
@@ -205,7 +208,7 @@ describe('heat-flow grid on the map', () => {
 		const expected = [/HTTP 400 .*\/api\/v1\/map\/region/, /HTTP 400 .*\/api\/v1\/grids$/];
 		expect(errors.filter((e) => !expected.some((x) => x.test(e)))).toEqual([]);
 		await context.close();
-	});
+	}, 150_000);
 
 	it('fits a 390 px phone: the view gridded, the isotherm-depth overlay and its legend, no sideways scroll', async () => {
 		const context = await browser.newContext({
