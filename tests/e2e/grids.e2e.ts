@@ -179,7 +179,7 @@ describe('heat-flow grid on the map', () => {
 		await expect(variogram.getByTestId('variogram-message').textContent()).resolves.toMatch(
 			/greater than the nugget/
 		);
-		await variogram.getByLabel('Model', { exact: true }).selectOption('spherical');
+		await variogram.locator('select[name=model]').selectOption('spherical');
 		await variogram.getByLabel('Nugget', { exact: true }).fill('10');
 		await variogram.getByLabel('Sill', { exact: true }).fill('150');
 		await variogram.getByRole('button', { name: 'Recompute with this variogram' }).click();
