@@ -551,12 +551,9 @@ export const gridFileQuery = z.object({
 		.optional()
 		.meta({ description: 'temperature-at-depth.tif/.png: depth below the surface, m.' }),
 	temperatureC: z.string().optional().meta({ description: 'isotherm-depth.tif/.png: °C.' }),
-	band: z
-		.enum(['p10', 'p50', 'p90'])
-		.optional()
-		.meta({
-			description: 'At-depth overlay PNGs: percentile drawn (default p50; p10/p90 kriging only).'
-		})
+	band: z.enum(['p10', 'p50', 'p90']).optional().meta({
+		description: 'At-depth overlay PNGs: percentile drawn (default p50; p10/p90 kriging only).'
+	})
 });
 
 // ---- attachments and imports (import shapes: $lib/schemas/imports.ts) ----------------------
