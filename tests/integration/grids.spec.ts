@@ -10,12 +10,14 @@ import path from 'node:path';
 import { promisify } from 'node:util';
 import { and, eq, like } from 'drizzle-orm';
 import { fromArrayBuffer } from 'geotiff';
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
 import { site } from '../../src/lib/server/db/schema';
 import { testEnv } from './env';
 import { Client, DEMO_PASSWORD, signIn } from './http';
 import { USER_RATE_RULES } from '../../src/lib/server/auth/rate-rules';
+import { NOT_REACHED_COLOUR, VIRIDIS_7 } from '../../src/lib/grids/at-depth-scale';
 
 const run = promisify(execFile);
 const { db, client: sql } = createDb(testEnv.databaseUrl(), { max: 2 });
@@ -194,6 +196,58 @@ describe('a kriging grid requested by an anonymous visitor', () => {
 		expect(
 			(await anonymous.get(`/api/v1/grids/${id}/isotherm-depth.tif?temperatureC=abc`)).status
 		).toBe(400);
+	});
+
+	it('draws the at-depth results as map overlays in their legend classes; P90 is hotter than P10', async () => {
+		/** The opaque pixels' colours of an overlay, and their mean luminance (Rec. 709 weights). */
+		const pixels = async (url: string) => {
+			const res = await anonymous.get(url);
+			expect(res.status).toBe(200);
+			expect(res.headers.get('content-type')).toBe('image/png');
+			const { data, info } = await sharp(Buffer.from(await res.arrayBuffer()))
+				.ensureAlpha()
+				.raw()
+				.toBuffer({ resolveWithObject: true });
+			const colours = new Set<string>();
+			let light = 0;
+			let n = 0;
+			for (let o = 0; o < info.width * info.height * 4; o += 4) {
+				if (data[o + 3] === 0) continue;
+				const hex = `#${[data[o], data[o + 1], data[o + 2]].map((v) => v.toString(16).padStart(2, '0')).join('')}`;
+				colours.add(hex);
+				// Cells where the isotherm is not reached (grey) are not in the gradient classes.
+				if (hex === NOT_REACHED_COLOUR) continue;
+				light += 0.2126 * data[o] + 0.7152 * data[o + 1] + 0.0722 * data[o + 2];
+				n++;
+			}
+			expect(n).toBeGreaterThan(0);
+			return { colours, light: light / n };
+		};
+		const base = `/api/v1/grids/${id}`;
+		const t10 = await pixels(`${base}/temperature-at-depth.png?depthM=3000&band=p10`);
+		const t90 = await pixels(`${base}/temperature-at-depth.png?depthM=3000&band=p90`);
+		const legend = new Set<string>(VIRIDIS_7);
+		for (const c of [...t10.colours, ...t90.colours]) expect(legend.has(c)).toBe(true);
+		// Hotter is brighter in the legend, and P90 is the hot end.
+		expect(t90.light).toBeGreaterThan(t10.light);
+		const d50 = await pixels(`${base}/isotherm-depth.png?temperatureC=150&band=p50`);
+		for (const c of d50.colours) expect(legend.has(c) || c === NOT_REACHED_COLOUR).toBe(true);
+		// The classes follow the mean gradient down to the isotherm; the crust's heat production makes
+		// the geotherm flatten with depth, so 400 °C lies in darker (lower-gradient) classes than 150 °C.
+		const deep = await pixels(`${base}/isotherm-depth.png?temperatureC=400&band=p50`);
+		expect(deep.light).toBeLessThan(d50.light);
+		expect((await anonymous.get(`${base}/isotherm-depth.png?band=p99`)).status).toBe(400);
+		expect((await anonymous.get(`${base}/temperature-at-depth.png?depthM=-5`)).status).toBe(400);
+	});
+
+	it('an IDW grid has no σ, so no P10/P90 at depth: a sentence, not an empty overlay', async () => {
+		const { body } = await post(anonymous, { ...REQUEST, method: 'idw', cellSizeM: 20_000 });
+		expect((await waitForGrid(anonymous, body.id)).body.status).toBe('done');
+		const p90 = await anonymous.get(`/api/v1/grids/${body.id}/isotherm-depth.png?band=p90`);
+		expect(p90.status).toBe(400);
+		expect((await p90.json()).error.message).toMatch(/P50 only/);
+		const p50 = await anonymous.get(`/api/v1/grids/${body.id}/isotherm-depth.png?band=p50`);
+		expect(p50.headers.get('content-type')).toBe('image/png');
 	});
 
 	it('gives region statistics: over the whole grid, the mean and median of its cells; P10 ≤ P50 ≤ P90', async () => {

@@ -539,7 +539,9 @@ export const GRID_FILE_NAMES = [
 	'heat-flow.png',
 	'sigma.png',
 	'temperature-at-depth.tif',
-	'isotherm-depth.tif'
+	'isotherm-depth.tif',
+	'temperature-at-depth.png',
+	'isotherm-depth.png'
 ] as const;
 
 export const gridFilePath = z.object({ id: z.uuid(), file: z.enum(GRID_FILE_NAMES) });
@@ -547,8 +549,11 @@ export const gridFileQuery = z.object({
 	depthM: z
 		.string()
 		.optional()
-		.meta({ description: 'temperature-at-depth.tif: depth below the surface, m.' }),
-	temperatureC: z.string().optional().meta({ description: 'isotherm-depth.tif: °C.' })
+		.meta({ description: 'temperature-at-depth.tif/.png: depth below the surface, m.' }),
+	temperatureC: z.string().optional().meta({ description: 'isotherm-depth.tif/.png: °C.' }),
+	band: z.enum(['p10', 'p50', 'p90']).optional().meta({
+		description: 'At-depth overlay PNGs: percentile drawn (default p50; p10/p90 kriging only).'
+	})
 });
 
 // ---- attachments and imports (import shapes: $lib/schemas/imports.ts) ----------------------

@@ -7,7 +7,12 @@ export interface GridStatusView {
 	status: GridStatus;
 	progress: number;
 	error: string | null;
-	request: { method: 'kriging' | 'idw' };
+	request: {
+		method: 'kriging' | 'idw';
+		bbox: [number, number, number, number];
+		cellSizeM: number;
+		maskDistanceM?: number;
+	};
 	crs: { epsg: number; name: string };
 	boundsWgs84: [number, number, number, number];
 	sitesUsed: number;
@@ -38,6 +43,8 @@ export interface GridStatusView {
 		contours: string;
 		temperatureAtDepth: string;
 		isothermDepth: string;
+		temperatureAtDepthPng: string;
+		isothermDepthPng: string;
 	} | null;
 	caution: string;
 	atDepthAssumptions: string;

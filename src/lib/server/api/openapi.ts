@@ -447,7 +447,7 @@ export function openApiDocument() {
 								}
 							}
 						},
-						'400': error('A bad depthM or temperatureC.'),
+						'400': error('A bad depthM, temperatureC or band (p10/p90 need σ).'),
 						'404': error('Unknown grid or file name, not visible, or not finished.'),
 						...COMMON_ERRORS
 					}

@@ -142,12 +142,13 @@ function rgb(hex: string): [number, number, number] {
 /**
  * The overlay for the web map: a PNG in Web Mercator (the map's CRS) covering `bounds`, each
  * pixel the colour of the grid cell under it (nearest cell), transparent where masked or
- * outside; heat flow in the site markers' classes, σ in the σ classes.
+ * outside; heat flow in the site markers' classes, σ in the σ classes, or any other cells
+ * (the at-depth overlays) in the colours `band` gives.
  */
 export async function gridOverlayPng(
 	plan: GridPlan,
 	cells: Float32Array,
-	band: 'value' | 'sigma',
+	band: 'value' | 'sigma' | ((v: number) => string),
 	bounds: [number, number, number, number]
 ): Promise<Buffer> {
 	const [w, s, e, n] = bounds;
@@ -159,7 +160,8 @@ export async function gridOverlayPng(
 	const { forward } = projector(plan.crs);
 	const { x0, y0, dx, dy, nx, ny } = plan.grid;
 	const rgba = Buffer.alloc(width * height * 4);
-	const colour = band === 'value' ? heatFlowColour : sigmaColour;
+	const colour =
+		typeof band === 'function' ? band : band === 'value' ? heatFlowColour : sigmaColour;
 	const cache = new Map<string, [number, number, number]>();
 	const my0 = mercY(n);
 	const my1 = mercY(s);

@@ -8,6 +8,8 @@ import {
 	isothermDepthGrid,
 	temperatureAtDepthGrid
 } from '$lib/grids/at-depth';
+import { isothermDepthClasses, overlayColour, temperatureClasses } from '$lib/grids/at-depth-scale';
+import { DEPTH_LIMITS_M, ISOTHERM_LIMITS_C } from '$lib/grids/overlays';
 import { gridRequestSchema, requestProblem, type GridRequest } from '$lib/grids/request';
 import {
 	gridRegionStatistics,
@@ -83,7 +85,9 @@ export const GRID_FILES = {
 	'heat-flow.png': 'image/png',
 	'sigma.png': 'image/png',
 	'temperature-at-depth.tif': 'image/tiff',
-	'isotherm-depth.tif': 'image/tiff'
+	'isotherm-depth.tif': 'image/tiff',
+	'temperature-at-depth.png': 'image/png',
+	'isotherm-depth.png': 'image/png'
 } as const;
 export type GridFile = keyof typeof GRID_FILES;
 
@@ -135,7 +139,9 @@ export async function gridStatus(db: Db, viewer: Viewer, id: string) {
 					sigmaPng: hasSigma ? `${base}/sigma.png` : null,
 					contours: `${base}/contours.geojson`,
 					temperatureAtDepth: `${base}/temperature-at-depth.tif?depthM=${DEFAULT_AT_DEPTH_M}`,
-					isothermDepth: `${base}/isotherm-depth.tif?temperatureC=${DEFAULT_ISOTHERM_C}`
+					isothermDepth: `${base}/isotherm-depth.tif?temperatureC=${DEFAULT_ISOTHERM_C}`,
+					temperatureAtDepthPng: `${base}/temperature-at-depth.png?depthM=${DEFAULT_AT_DEPTH_M}&band=p50`,
+					isothermDepthPng: `${base}/isotherm-depth.png?temperatureC=${DEFAULT_ISOTHERM_C}&band=p50`
 				}
 			: null,
 		caution: GRID_CAUTION,
@@ -159,6 +165,19 @@ function numberParam(
 	if (!Number.isFinite(v) || v < min || v > max)
 		error(400, `${name} must be a number from ${min} to ${max}; got ${raw.slice(0, 20)}.`);
 	return v;
+}
+
+/**
+ * The percentile band of an at-depth overlay (`band=p10|p50|p90`, default p50). P10 and P90 come
+ * from the kriging σ, so an IDW grid has P50 only: 400 with a sentence rather than an empty image.
+ */
+function percentileBand(params: URLSearchParams, hasSigma: boolean): 'p10' | 'p50' | 'p90' {
+	const band = params.get('band') ?? 'p50';
+	if (band !== 'p10' && band !== 'p50' && band !== 'p90')
+		error(400, `band must be p10, p50 or p90; got ${band.slice(0, 20)}.`);
+	if (band !== 'p50' && !hasSigma)
+		error(400, 'P10 and P90 need the kriging standard error: this grid has P50 only.');
+	return band;
 }
 
 /** One download of a finished grid, or the shared 404 (unknown, hidden, unfinished, no σ). */
@@ -219,16 +238,69 @@ export async function gridFile(
 			};
 		}
 		case 'temperature-at-depth.tif': {
-			const depthM = numberParam(params, 'depthM', DEFAULT_AT_DEPTH_M, 100, 30_000);
+			const depthM = numberParam(
+				params,
+				'depthM',
+				DEFAULT_AT_DEPTH_M,
+				DEPTH_LIMITS_M.min,
+				DEPTH_LIMITS_M.max
+			);
 			const t = temperatureAtDepthGrid(value, sigma, depthM);
 			const description = `Thermalith grid ${row.id}. Temperature (deg C) at ${depthM} m; bands P10, P50, P90. Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
 			return { body: await gridGeoTiff([t.p10, t.p50, t.p90], plan, description), type, fileName };
 		}
 		case 'isotherm-depth.tif': {
-			const isothermC = numberParam(params, 'temperatureC', DEFAULT_ISOTHERM_C, 20, 1000);
+			const isothermC = numberParam(
+				params,
+				'temperatureC',
+				DEFAULT_ISOTHERM_C,
+				ISOTHERM_LIMITS_C.min,
+				ISOTHERM_LIMITS_C.max
+			);
 			const d = isothermDepthGrid(value, sigma, isothermC);
 			const description = `Thermalith grid ${row.id}. Depth (m) of ${isothermC} deg C; bands P10, P50, P90 (P10 shallowest). Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
 			return { body: await gridGeoTiff([d.p10, d.p50, d.p90], plan, description), type, fileName };
+		}
+		case 'temperature-at-depth.png': {
+			const depthM = numberParam(
+				params,
+				'depthM',
+				DEFAULT_AT_DEPTH_M,
+				DEPTH_LIMITS_M.min,
+				DEPTH_LIMITS_M.max
+			);
+			const band = percentileBand(params, sigma !== null);
+			const cells = temperatureAtDepthGrid(value, sigma, depthM)[band];
+			const classes = temperatureClasses(depthM);
+			const png = await gridOverlayPng(
+				plan,
+				cells,
+				(t) => overlayColour(classes, t),
+				gridBoundsWgs84(plan)
+			);
+			return { body: png, type, fileName };
+		}
+		case 'isotherm-depth.png': {
+			const isothermC = numberParam(
+				params,
+				'temperatureC',
+				DEFAULT_ISOTHERM_C,
+				ISOTHERM_LIMITS_C.min,
+				ISOTHERM_LIMITS_C.max
+			);
+			const band = percentileBand(params, sigma !== null);
+			const depth = isothermDepthGrid(value, sigma, isothermC)[band];
+			// A cell with a heat flow whose isotherm lies below the crust is drawn (grey), not empty.
+			for (let c = 0; c < depth.length; c++)
+				if (Number.isNaN(depth[c]) && !Number.isNaN(value[c])) depth[c] = Infinity;
+			const classes = isothermDepthClasses(isothermC);
+			const png = await gridOverlayPng(
+				plan,
+				depth,
+				(m) => overlayColour(classes, m / 1000),
+				gridBoundsWgs84(plan)
+			);
+			return { body: png, type, fileName };
 		}
 		case 'heat-flow.png':
 		case 'sigma.png':

@@ -5,7 +5,9 @@ import type { RequestHandler } from './$types';
 
 /**
  * A download of a finished grid: heat-flow.tif, sigma.tif, grid.csv, contours.geojson,
- * heat-flow.png, sigma.png, temperature-at-depth.tif?depthM=, isotherm-depth.tif?temperatureC=.
+ * heat-flow.png, sigma.png, temperature-at-depth.tif?depthM=, isotherm-depth.tif?temperatureC=,
+ * and the at-depth map overlays temperature-at-depth.png?depthM=&band= and
+ * isotherm-depth.png?temperatureC=&band=.
  */
 export const GET: RequestHandler = apiHandler(async (event) => {
 	const file = await gridFile(
