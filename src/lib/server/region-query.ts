@@ -1,6 +1,9 @@
 import { error } from '@sveltejs/kit';
 import { parseRegionParams, parseRegionPolygon, type Region } from '$lib/map/region-shape';
 import { parseSiteFilters, siteFilterProblems, type SiteFilters } from '$lib/sites/filters';
+import type { Viewer } from './access';
+import { getDb } from './db';
+import { savedRegionShape } from './repositories/saved-regions';
 
 /** The site filters of a region query, strictly (a 400 naming the problem, as mapQuery). */
 function strictFilters(params: URLSearchParams): SiteFilters {
@@ -9,8 +12,21 @@ function strictFilters(params: URLSearchParams): SiteFilters {
 	return parseSiteFilters(params);
 }
 
-/** A region from the query (`bbox` or `polygon`) with the filters; bad values are a 400. */
-export function regionQuery(params: URLSearchParams): { region: Region; filters: SiteFilters } {
+/**
+ * A region from the query (`bbox`, `polygon`, or `region=<id>` of a saved region the viewer may
+ * see: otherwise the one 404) with the filters; bad values are a 400.
+ */
+export async function regionQuery(
+	params: URLSearchParams,
+	viewer: Viewer
+): Promise<{ region: Region; filters: SiteFilters }> {
+	const saved = params.get('region');
+	if (saved !== null) {
+		if (params.get('bbox') || params.get('polygon'))
+			error(400, 'give one of region, bbox or polygon, not several');
+		const filters = strictFilters(params);
+		return { region: await savedRegionShape(getDb(), viewer, saved), filters };
+	}
 	const region = parseRegionParams(params);
 	if (!region.ok) error(400, region.error);
 	return { region: region.value, filters: strictFilters(params) };

@@ -44,6 +44,8 @@ describe('the generated OpenAPI document', () => {
 				'/map/search',
 				'/openapi.json',
 				'/organisations',
+				'/regions',
+				'/regions/{id}',
 				'/sites',
 				'/sites.geojson',
 				'/sites/{id}',

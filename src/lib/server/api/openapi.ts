@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject } from 'zod-openapi';
 import { gridRequestSchema } from '$lib/grids/request';
 import { regionStatisticsRequestSchema } from '$lib/grids/region-stats';
+import { newSavedRegionSchema, savedRegionChangeSchema } from '$lib/map/saved-region';
 import {
 	batchStatusSchema,
 	commitRequestSchema,
@@ -34,6 +35,8 @@ import {
 	gridRegionStatisticsSchema,
 	mapSearchQuerySchema,
 	regionStatisticsSchema,
+	savedRegionListSchema,
+	savedRegionSchema,
 	siteSearchSchema,
 	sitesGeoJsonQuerySchema,
 	geothermResponseSchema,
@@ -354,6 +357,69 @@ export function openApiDocument() {
 						},
 						'400': error('A bad region or filters, or more sites than one file holds.'),
 						...COMMON_ERRORS
+					}
+				}
+			},
+			'/regions': {
+				get: {
+					summary: 'Your saved regions and those shared with your organisations',
+					tags: ['map'],
+					responses: {
+						'200': { description: 'OK', content: json(savedRegionListSchema) },
+						...SIGNED_IN,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
+					}
+				},
+				post: change(
+					'Save a region (a valid polygon; names unique per person)',
+					['map'],
+					newSavedRegionSchema,
+					'201',
+					savedRegionSchema,
+					{
+						'409': error('A region of yours has this name, or you keep the most regions.'),
+						'415': error('The body is not application/json.')
+					}
+				)
+			},
+			'/regions/{id}': {
+				get: {
+					summary: 'One saved region',
+					tags: ['map'],
+					requestParams: { path: idPath },
+					responses: {
+						'200': { description: 'OK', content: json(savedRegionSchema) },
+						...SIGNED_IN,
+						...notFound,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
+					}
+				},
+				patch: {
+					...change(
+						'Rename a region of yours, or share it with one of your organisations',
+						['map'],
+						savedRegionChangeSchema,
+						'200',
+						savedRegionSchema,
+						{
+							'409': error('A region of yours has this name.'),
+							'415': error('The body is not application/json.')
+						}
+					),
+					requestParams: { path: idPath }
+				},
+				delete: {
+					summary: 'Delete a region of yours',
+					tags: ['map'],
+					requestParams: { path: idPath },
+					responses: {
+						'204': { description: 'Deleted' },
+						...SIGNED_IN,
+						...notFound,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
 					}
 				}
 			},
