@@ -162,6 +162,18 @@ function mapRead(
 	};
 }
 
+/** A region route taking `region=<id>`: a saved region the caller may not use is the one 404. */
+function withSavedRegion(op: ZodOpenApiOperationObject): ZodOpenApiOperationObject {
+	return {
+		...op,
+		responses: {
+			...op.responses,
+			'401': error('region=<id> without signing in (or an unknown, revoked or expired key).'),
+			'404': error('region=<id> is unknown or not visible to the caller (the same answer).')
+		}
+	};
+}
+
 /** A change with a JSON body, answered with JSON. */
 function change(
 	summary: string,
@@ -307,10 +319,12 @@ export function openApiDocument() {
 				)
 			},
 			'/map/region': {
-				get: mapRead(
-					'Heat-flow statistics of the visible sites in a rectangle or polygon',
-					mapRegionShapeQuerySchema,
-					regionStatisticsSchema
+				get: withSavedRegion(
+					mapRead(
+						'Heat-flow statistics of the visible sites in a rectangle, polygon or saved region',
+						mapRegionShapeQuerySchema,
+						regionStatisticsSchema
+					)
 				),
 				post: {
 					summary: 'Heat-flow statistics of the visible sites in a drawn polygon',
@@ -325,7 +339,7 @@ export function openApiDocument() {
 				}
 			},
 			'/map/region/sites.csv': {
-				get: {
+				get: withSavedRegion({
 					summary:
 						'The visible sites of a region as CSV, with a citation block per dataset (logged)',
 					tags: ['map'],
@@ -335,10 +349,10 @@ export function openApiDocument() {
 						'400': error('A bad region or filters, or more sites than one file holds.'),
 						...COMMON_ERRORS
 					}
-				}
+				})
 			},
 			'/map/region/sites.geojson': {
-				get: {
+				get: withSavedRegion({
 					summary:
 						'The visible sites of a region as GeoJSON, citations in metadata.datasets (logged)',
 					tags: ['map'],
@@ -358,7 +372,7 @@ export function openApiDocument() {
 						'400': error('A bad region or filters, or more sites than one file holds.'),
 						...COMMON_ERRORS
 					}
-				}
+				})
 			},
 			'/regions': {
 				get: {
