@@ -112,8 +112,8 @@ try {
 	const appEnv = Object.fromEntries(
 		Object.entries(process.env).filter((e): e is [string, string] => e[1] !== undefined)
 	);
-	await seedDemoData({ ...appEnv, THERMALITH_SEED: 'if-empty' });
 	if (!dryRun) {
+		await seedDemoData({ ...appEnv, THERMALITH_SEED: 'if-empty' });
 		await buildApp(BUILD_DIR, appEnv);
 		app = spawn(process.execPath, [path.resolve(BUILD_DIR, 'index.js')], {
 			env: { ...appEnv, ORIGIN: origin },
@@ -134,7 +134,7 @@ try {
 			`${LARGE_SITES.toLocaleString('en')} sites`
 		);
 	} else {
-		// A dry run proves the modules load and the demo seed runs; building takes minutes.
+		// A dry run proves the modules load; building and seeding take minutes.
 		figure({
 			id: 'map.browser-interactive-demo.p50',
 			label: 'Map page interactive with markers drawn (dry run: not measured)',
