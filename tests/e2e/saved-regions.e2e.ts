@@ -11,7 +11,7 @@ afterAll(async () => {
 });
 
 describe('saved regions on the map', () => {
-	it('saves a drawn rectangle, picks it after a reload, reads its statistics, renames and deletes it', async () => {
+	it('saves a drawn rectangle, picks it after a reload, reads its statistics, renames, shares and deletes it', async () => {
 		const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
 		const page = await context.newPage();
 		const errors = watchForErrors(page);
@@ -75,6 +75,14 @@ describe('saved regions on the map', () => {
 		await expect
 			.poll(() => picker.locator('option', { hasText: `${name} (west)` }).count())
 			.toBe(1);
+
+		// Shared with the curator's organisation: its members may pick it.
+		await page.getByTestId('share-region').selectOption({ label: 'Korvald Geological Survey' });
+		await expect
+			.poll(() => page.getByTestId('saved-region-message').textContent(), { timeout: 15_000 })
+			.toBe('Shared with Korvald Geological Survey.');
+		const shared = await (await page.request.get(`${appUrl()}/api/v1/regions/${id}`)).json();
+		expect(shared.organisation.id).toBe('org-korvald-survey');
 
 		await page.getByTestId('delete-region').click();
 		await expect

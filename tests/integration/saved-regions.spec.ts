@@ -247,6 +247,11 @@ describe('saved regions', () => {
 			'PATCH'
 		);
 		expect(shared.status).toBe(200);
+		// The list offers the organisations one belongs to, and only those.
+		const offered = async (c: Client) =>
+			(await (await c.get('/api/v1/regions')).json()).shareWith.map((o: { id: string }) => o.id);
+		expect(await offered(curator)).toEqual(['org-korvald-survey']);
+		expect(await offered(outsider)).toEqual(['org-lindmark-thermics']);
 		const seen = await (await fellow.get(`/api/v1/regions/${saved.id}`)).json();
 		expect(seen).toMatchObject({ mine: false, organisation: { id: 'org-korvald-survey' } });
 		const stats = await (await fellow.get(`/api/v1/map/region?region=${saved.id}&${codes}`)).json();

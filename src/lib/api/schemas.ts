@@ -613,5 +613,10 @@ export const savedRegionSchema = z
 	.meta({ id: 'SavedRegion' });
 
 export const savedRegionListSchema = z
-	.object({ items: z.array(savedRegionSchema) })
+	.object({
+		items: z.array(savedRegionSchema),
+		shareWith: z
+			.array(z.object({ id: z.string(), name: z.string() }))
+			.meta({ description: 'Organisations of yours a region may be shared with.' })
+	})
 	.meta({ id: 'SavedRegionList' });

@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { and, asc, count, eq, sql } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
 import type { Position, Region } from '$lib/map/region-shape';
 import { MAX_SAVED_REGIONS, type SavedRegion } from '$lib/map/saved-region';
 import {
@@ -79,6 +79,20 @@ export async function listSavedRegions(db: Db, viewer: Viewer): Promise<SavedReg
 		.where(visibleRegions(viewer))
 		.orderBy(asc(sql`lower(${savedRegion.name})`), asc(savedRegion.id));
 	return rows.map((r) => present(r, viewer));
+}
+
+/** The organisations the viewer may share a region with (those they belong to), by name. */
+export async function regionSharingOptions(
+	db: Db,
+	viewer: Viewer
+): Promise<{ id: string; name: string }[]> {
+	const ids = Object.keys(viewer.roles);
+	if (!viewer.userId || !ids.length) return [];
+	return db
+		.select({ id: organisation.id, name: organisation.name })
+		.from(organisation)
+		.where(inArray(organisation.id, ids))
+		.orderBy(asc(organisation.name));
 }
 
 /** One region the viewer may see, or the 404 of hidden and unknown ids. */
