@@ -19,15 +19,9 @@ export const regionNameSchema = z
 	// eslint-disable-next-line no-control-regex -- the point is to refuse control characters
 	.refine((s) => !/[\u0000-\u001f\u007f]/.test(s), 'A region name cannot hold control characters.');
 
-const organisationId = z
-	.string()
-	.min(1)
-	.max(200)
-	.nullable()
-	.optional()
-	.meta({
-		description: 'Share with this organisation of yours (its members may pick it); null: only you.'
-	});
+const organisationId = z.string().min(1).max(200).nullable().optional().meta({
+	description: 'Share with this organisation of yours (its members may pick it); null: only you.'
+});
 
 /** POST /api/v1/regions. */
 export const newSavedRegionSchema = z.strictObject({
