@@ -161,6 +161,8 @@ const PAGES: { who: string; email: string | null; paths: string[] }[] = [
 		email: 'owner@korvald-survey.example',
 		paths: [
 			'/account',
+			// Signed in, the map's panel also holds the saved regions.
+			'/map',
 			'/datasets/new',
 			'/organisations/new',
 			'/organisations/korvald-survey/settings',

@@ -271,6 +271,66 @@ describe('every answer fits the document', () => {
 		await conforms('/map/search', 'get', await script.fetch('/api/v1/map/search?q='));
 	});
 
+	it('saved regions: save, list, read, rename, use, delete and refusals', async () => {
+		const ring = [
+			[140, 70],
+			[141, 70],
+			[141, 71],
+			[140, 70]
+		];
+		const name = `Contract region ${Date.now().toString(36)}`;
+		const body = { name, geometry: { type: 'Polygon', coordinates: [ring] } };
+		const created = await writer.fetch('/api/v1/regions', { method: 'POST', body });
+		expect(created.status).toBe(201);
+		const { id } = await created.clone().json();
+		await conforms('/regions', 'post', created);
+		await conforms(
+			'/regions',
+			'post',
+			await writer.fetch('/api/v1/regions', { method: 'POST', body })
+		);
+		await conforms(
+			'/regions',
+			'post',
+			await writer.fetch('/api/v1/regions', { method: 'POST', body: { ...body, name: '' } })
+		);
+		await conforms(
+			'/regions',
+			'post',
+			await script.fetch('/api/v1/regions', { method: 'POST', body })
+		);
+		await conforms('/regions', 'get', await script.fetch('/api/v1/regions'));
+		await conforms('/regions', 'get', await anonymous.get('/api/v1/regions'));
+		await conforms('/regions/{id}', 'get', await script.fetch(`/api/v1/regions/${id}`));
+		await conforms('/regions/{id}', 'get', await script.fetch(`/api/v1/regions/${unknownId}`));
+		await conforms(
+			'/regions/{id}',
+			'patch',
+			await writer.fetch(`/api/v1/regions/${id}`, { method: 'PATCH', body: { name: `${name} b` } })
+		);
+		await conforms(
+			'/regions/{id}',
+			'patch',
+			await writer.fetch(`/api/v1/regions/${id}`, { method: 'PATCH', body: {} })
+		);
+		await conforms('/map/region', 'get', await script.fetch(`/api/v1/map/region?region=${id}`));
+		await conforms(
+			'/map/region',
+			'get',
+			await script.fetch(`/api/v1/map/region?region=${unknownId}`)
+		);
+		await conforms(
+			'/regions/{id}',
+			'delete',
+			await writer.fetch(`/api/v1/regions/${id}`, { method: 'DELETE' })
+		);
+		await conforms(
+			'/regions/{id}',
+			'delete',
+			await writer.fetch(`/api/v1/regions/${id}`, { method: 'DELETE' })
+		);
+	});
+
 	it('grids: request, status, files and refusals', async () => {
 		const request = { method: 'idw', bbox: [8.4, 58.9, 10.2, 60.1], cellSizeM: 25_000 };
 		const accepted = await writer.fetch('/api/v1/grids', { method: 'POST', body: request });

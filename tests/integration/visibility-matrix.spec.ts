@@ -1162,8 +1162,79 @@ const ROUTES: Record<string, Row> = {
 				}
 			}
 		]
+	},
+	'/api/v1/regions': {
+		checks: [
+			{
+				name: "saved regions: each viewer lists their own, never another's",
+				run: async (k, c) => {
+					if (c !== caseNames[0]) return expect(c).not.toBe(caseNames[0]);
+					const signedIn = kinds.filter((j) => j !== 'anonymous');
+					const made = await Promise.all(signedIn.map(savedRegionOf));
+					const res = await get(k, '/api/v1/regions');
+					if (k === 'anonymous') return expect(res.status).toBe(401);
+					const listedIds = (await res.json()).items.map((r: { id: string }) => r.id);
+					for (const [i, j] of signedIn.entries())
+						expect(listedIds.includes(made[i]), `${k} lists ${j}'s`).toBe(j === k);
+				}
+			}
+		]
+	},
+	'/api/v1/regions/[id=uuid]': {
+		checks: [
+			{
+				name: "a saved region: its owner's only (the one 404 for others)",
+				run: async (k, c) => {
+					if (c !== caseNames[0]) return expect(c).not.toBe(caseNames[0]);
+					const res = await get(k, `/api/v1/regions/${await savedRegionOf('curator')}`);
+					if (k === 'anonymous') return expect(res.status).toBe(401);
+					if (k !== 'curator') return expectHidden(res);
+					expect(res.status).toBe(200);
+				}
+			},
+			{
+				name: "statistics of the viewer's own saved region (the map's visibility rule)",
+				run: async (k, c) => {
+					if (k === 'anonymous') return expect(KINDS[k]).toBeNull();
+					const code = `MX-${caseNames.indexOf(c)}-${run}`;
+					const id = await savedRegionOf(k);
+					const body = JSON.parse(await text(k, `/api/v1/map/region?region=${id}&q=${code}`));
+					expect(body.count).toBe(sees(k, c) && CASES[c].map ? 1 : 0);
+				}
+			}
+		]
 	}
 };
+
+/** One saved region per signed-in viewer kind, the matrix's box, made on first use. */
+const savedRegions = new Map<Kind, Promise<string>>();
+function savedRegionOf(k: Kind): Promise<string> {
+	if (!savedRegions.has(k))
+		savedRegions.set(
+			k,
+			(async () => {
+				const { west: w, south: s, east: e, north: n } = BOX;
+				const res = await clients[k].json('/api/v1/regions', {
+					name: `Matrix ${k} ${run}`,
+					geometry: {
+						type: 'Polygon',
+						coordinates: [
+							[
+								[w, s],
+								[e, s],
+								[e, n],
+								[w, n],
+								[w, s]
+							]
+						]
+					}
+				});
+				expect(res.status).toBe(201);
+				return (await res.json()).id as string;
+			})()
+		);
+	return savedRegions.get(k)!;
+}
 
 /** Route ids of every page, layout and endpoint under src/routes, as SvelteKit names them. */
 function routeIds(): string[] {

@@ -352,6 +352,10 @@ export const mapRegionShapeQuerySchema = z.object({
 		.string()
 		.optional()
 		.meta({ description: 'Corners as `lon lat,lon lat,…` (at most 200), instead of bbox.' }),
+	region: z
+		.uuid()
+		.optional()
+		.meta({ description: 'Id of a saved region (/regions) instead of bbox or polygon.' }),
 	...mapFilterParams
 });
 /** A drawn polygon as the body of POST /map/region (limits in $lib/map/region-shape.ts). */
@@ -588,3 +592,36 @@ export const attachmentSchema = z
 export const importCommittedSchema = z
 	.object({ batchId: z.uuid(), rows: z.number().int() })
 	.meta({ id: 'ImportQueued' });
+
+// ---- saved regions (requests: $lib/map/saved-region.ts) ------------------------------------
+
+export const savedRegionSchema = z
+	.object({
+		id: z.uuid(),
+		name: z.string(),
+		geometry: z.object({
+			type: z.literal('Polygon'),
+			coordinates: z.array(z.array(z.array(z.number()).length(2)))
+		}),
+		bbox: z
+			.array(z.number())
+			.length(4)
+			.meta({ description: 'west, south, east, north of the outline.' }),
+		mine: z.boolean().meta({ description: 'Saved by the caller, who alone may change it.' }),
+		organisation: z
+			.object({ id: z.string(), name: z.string() })
+			.nullable()
+			.meta({ description: 'The organisation it is shared with; null: private.' }),
+		createdAt: z.string().meta({ format: 'date-time' }),
+		updatedAt: z.string().meta({ format: 'date-time' })
+	})
+	.meta({ id: 'SavedRegion' });
+
+export const savedRegionListSchema = z
+	.object({
+		items: z.array(savedRegionSchema),
+		shareWith: z
+			.array(z.object({ id: z.string(), name: z.string() }))
+			.meta({ description: 'Organisations of yours a region may be shared with.' })
+	})
+	.meta({ id: 'SavedRegionList' });

@@ -23,7 +23,9 @@ export const AUDIT_ACTIONS: Record<string, string> = {
 	'audit-export': 'exported the audit log',
 	'role-change': 'changed a member’s role',
 	suspend: 'suspended an account',
-	restore: 'restored an account'
+	restore: 'restored an account',
+	'region.save': 'saved a map region',
+	'region.delete': 'deleted a saved map region'
 };
 
 export function auditActionLabel(action: string): string {

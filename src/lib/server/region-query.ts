@@ -1,10 +1,26 @@
 import { error } from '@sveltejs/kit';
 import { parseRegionParams, parseRegionPolygon, type Region } from '$lib/map/region-shape';
 import type { SiteFilters } from '$lib/sites/filters';
+import type { Viewer } from './access';
+import { getDb } from './db';
 import { strictSiteFilters } from './map-query';
+import { savedRegionShape } from './repositories/saved-regions';
 
-/** A region from the query (`bbox` or `polygon`) with the filters; bad values are a 400. */
-export function regionQuery(params: URLSearchParams): { region: Region; filters: SiteFilters } {
+/**
+ * A region from the query (`bbox`, `polygon`, or `region=<id>` of a saved region the viewer may
+ * see: otherwise the one 404) with the filters; bad values are a 400.
+ */
+export async function regionQuery(
+	params: URLSearchParams,
+	viewer: Viewer
+): Promise<{ region: Region; filters: SiteFilters }> {
+	const saved = params.get('region');
+	if (saved !== null) {
+		if (params.get('bbox') || params.get('polygon'))
+			error(400, 'give one of region, bbox or polygon, not several');
+		const filters = strictSiteFilters(params);
+		return { region: await savedRegionShape(getDb(), viewer, saved), filters };
+	}
 	const region = parseRegionParams(params);
 	if (!region.ok) error(400, region.error);
 	return { region: region.value, filters: strictSiteFilters(params) };

@@ -22,4 +22,5 @@ export {
 	type TransitionName
 } from './lifecycle';
 export { NOT_FOUND_MESSAGE, notFound, requireUuid } from './not-found';
+export { mayShareWith, ownRegions, visibleRegions } from './regions';
 export { SHARING_REFUSALS, embargoDateRefusal, expiryRefusal, shareable } from './sharing';

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject } from 'zod-openapi';
 import { gridRequestSchema } from '$lib/grids/request';
 import { regionStatisticsRequestSchema } from '$lib/grids/region-stats';
+import { newSavedRegionSchema, savedRegionChangeSchema } from '$lib/map/saved-region';
 import {
 	batchStatusSchema,
 	commitRequestSchema,
@@ -34,6 +35,8 @@ import {
 	gridRegionStatisticsSchema,
 	mapSearchQuerySchema,
 	regionStatisticsSchema,
+	savedRegionListSchema,
+	savedRegionSchema,
 	siteSearchSchema,
 	sitesGeoJsonQuerySchema,
 	geothermResponseSchema,
@@ -155,6 +158,18 @@ function mapRead(
 			'304': notModified,
 			'400': error('A missing or malformed bbox, zoom or filter (named in the message).'),
 			...COMMON_ERRORS
+		}
+	};
+}
+
+/** A region route taking `region=<id>`: a saved region the caller may not use is the one 404. */
+function withSavedRegion(op: ZodOpenApiOperationObject): ZodOpenApiOperationObject {
+	return {
+		...op,
+		responses: {
+			...op.responses,
+			'401': error('region=<id> without signing in (or an unknown, revoked or expired key).'),
+			'404': error('region=<id> is unknown or not visible to the caller (the same answer).')
 		}
 	};
 }
@@ -304,10 +319,12 @@ export function openApiDocument() {
 				)
 			},
 			'/map/region': {
-				get: mapRead(
-					'Heat-flow statistics of the visible sites in a rectangle or polygon',
-					mapRegionShapeQuerySchema,
-					regionStatisticsSchema
+				get: withSavedRegion(
+					mapRead(
+						'Heat-flow statistics of the visible sites in a rectangle, polygon or saved region',
+						mapRegionShapeQuerySchema,
+						regionStatisticsSchema
+					)
 				),
 				post: {
 					summary: 'Heat-flow statistics of the visible sites in a drawn polygon',
@@ -322,7 +339,7 @@ export function openApiDocument() {
 				}
 			},
 			'/map/region/sites.csv': {
-				get: {
+				get: withSavedRegion({
 					summary:
 						'The visible sites of a region as CSV, with a citation block per dataset (logged)',
 					tags: ['map'],
@@ -332,10 +349,10 @@ export function openApiDocument() {
 						'400': error('A bad region or filters, or more sites than one file holds.'),
 						...COMMON_ERRORS
 					}
-				}
+				})
 			},
 			'/map/region/sites.geojson': {
-				get: {
+				get: withSavedRegion({
 					summary:
 						'The visible sites of a region as GeoJSON, citations in metadata.datasets (logged)',
 					tags: ['map'],
@@ -354,6 +371,69 @@ export function openApiDocument() {
 						},
 						'400': error('A bad region or filters, or more sites than one file holds.'),
 						...COMMON_ERRORS
+					}
+				})
+			},
+			'/regions': {
+				get: {
+					summary: 'Your saved regions and those shared with your organisations',
+					tags: ['map'],
+					responses: {
+						'200': { description: 'OK', content: json(savedRegionListSchema) },
+						...SIGNED_IN,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
+					}
+				},
+				post: change(
+					'Save a region (a valid polygon; names unique per person)',
+					['map'],
+					newSavedRegionSchema,
+					'201',
+					savedRegionSchema,
+					{
+						'409': error('A region of yours has this name, or you keep the most regions.'),
+						'415': error('The body is not application/json.')
+					}
+				)
+			},
+			'/regions/{id}': {
+				get: {
+					summary: 'One saved region',
+					tags: ['map'],
+					requestParams: { path: idPath },
+					responses: {
+						'200': { description: 'OK', content: json(savedRegionSchema) },
+						...SIGNED_IN,
+						...notFound,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
+					}
+				},
+				patch: {
+					...change(
+						'Rename a region of yours, or share it with one of your organisations',
+						['map'],
+						savedRegionChangeSchema,
+						'200',
+						savedRegionSchema,
+						{
+							'409': error('A region of yours has this name.'),
+							'415': error('The body is not application/json.')
+						}
+					),
+					requestParams: { path: idPath }
+				},
+				delete: {
+					summary: 'Delete a region of yours',
+					tags: ['map'],
+					requestParams: { path: idPath },
+					responses: {
+						'204': { description: 'Deleted' },
+						...SIGNED_IN,
+						...notFound,
+						'429': COMMON_ERRORS['429'],
+						'503': COMMON_ERRORS['503']
 					}
 				}
 			},

@@ -11,3 +11,4 @@ export * from './grids';
 export * from './access';
 export * from './api-keys';
 export * from './map-cells';
+export * from './saved-regions';

@@ -12,7 +12,7 @@ import type { RequestHandler } from './$types';
  * `region/sites.csv` and `region/sites.geojson`.
  */
 export const GET: RequestHandler = apiHandler(async ({ url, locals, request }) => {
-	const { region, filters } = regionQuery(url.searchParams);
+	const { region, filters } = await regionQuery(url.searchParams, locals.viewer);
 	return privateJson(request, await regionStatistics(getDb(), locals.viewer, region, filters));
 });
 

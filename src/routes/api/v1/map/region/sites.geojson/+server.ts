@@ -9,7 +9,7 @@ import type { RequestHandler } from './$types';
  * GeoJSON, with the citation and licence of every dataset they come from (region-download.ts).
  */
 export const GET: RequestHandler = apiHandler(async ({ url, locals }) => {
-	const { region, filters } = regionQuery(url.searchParams);
+	const { region, filters } = await regionQuery(url.searchParams, locals.viewer);
 	const d = await regionDownload(getDb(), locals.viewer, region, filters, 'geojson', url.origin);
 	return new Response(d.body, { headers: d.headers });
 });
