@@ -8,6 +8,7 @@ import {
 	maskByDistance,
 	mergeDuplicateSamples,
 	type GridSpec,
+	type IdwEverySiteInputs,
 	type Sample,
 	type Variogram,
 	type VariogramPoint
@@ -261,12 +262,32 @@ function summarise(pairs: [number, number][], variances: number[] | null): Cross
 	};
 }
 
+/**
+ * Runs idwEverySitePower2Rows over all rows of `grid` into `out` (full grid, index j · nx + i),
+ * in strips of `stripRows`, calling `onRows` with the number of rows done after each strip
+ * (in order, increasing). The server runs it on worker threads (src/lib/server/grids); it must
+ * give the same numbers as the kernel on this thread, which every split of the rows does.
+ */
+export type IdwStripRunner = (
+	inputs: IdwEverySiteInputs,
+	grid: GridSpec,
+	stripRows: number,
+	out: Float64Array,
+	onRows: (rowsDone: number) => Promise<void>
+) => Promise<void>;
+
+export interface ComputeGridOptions {
+	/** Where IDW with every site and power 2 runs; on this thread, strip by strip, without it. */
+	idwStrips?: IdwStripRunner;
+}
+
 /** Samples are projected metres and mW/m²; `onProgress` gets a fraction 0–1. */
 export async function computeGrid(
 	input: Sample[],
 	grid: GridSpec,
 	req: GridRequest,
-	onProgress: (fraction: number) => Promise<void> = async () => {}
+	onProgress: (fraction: number) => Promise<void> = async () => {},
+	options: ComputeGridOptions = {}
 ): Promise<GridComputation> {
 	const samples = mergeDuplicateSamples(
 		input.map((s) =>
@@ -306,11 +327,16 @@ export async function computeGrid(
 		req.method === 'kriging'
 			? null
 			: idwRows(samples, grid, { power: req.power, maxNeighbours: k });
-	for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
-		const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
-		if (rows) rows(j0, j1, value64, sigma64!);
-		else idw!(j0, j1, value64);
-		await onProgress(0.15 + (0.8 * j1) / grid.ny);
+	const gridProgress = (rowsDone: number) => onProgress(0.15 + (0.8 * rowsDone) / grid.ny);
+	if (idw?.everySitePower2 && options.idwStrips) {
+		await options.idwStrips(idw.everySitePower2, grid, STRIP_ROWS, value64, gridProgress);
+	} else {
+		for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
+			const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
+			if (rows) rows(j0, j1, value64, sigma64!);
+			else idw!(j0, j1, value64);
+			await gridProgress(j1);
+		}
 	}
 	value.set(value64);
 	if (sigma) sigma.set(sigma64!);
