@@ -267,13 +267,15 @@ function summarise(pairs: [number, number][], variances: number[] | null): Cross
  * in strips of `stripRows`, calling `onRows` with the number of rows done after each strip
  * (in order, increasing). The server runs it on worker threads (src/lib/server/grids); it must
  * give the same numbers as the kernel on this thread, which every split of the rows does.
+ * Aborting `signal` ends it early with a rejection.
  */
 export type IdwStripRunner = (
 	inputs: IdwEverySiteInputs,
 	grid: GridSpec,
 	stripRows: number,
 	out: Float64Array,
-	onRows: (rowsDone: number) => Promise<void>
+	onRows: (rowsDone: number) => Promise<void>,
+	signal?: AbortSignal
 ) => Promise<void>;
 
 export interface ComputeGridOptions {
@@ -305,32 +307,65 @@ export async function computeGrid(
 		req.method === 'kriging'
 			? (req.maxNeighbours ?? DEFAULT_KRIGING_NEIGHBOURS)
 			: req.maxNeighbours;
-	if (req.method === 'kriging') {
-		({ variogram, empirical } = chooseVariogram(samples, req));
-		await onProgress(0.05);
-		const res = crossValidationResiduals(samples, variogram, { maxNeighbours: k });
-		crossValidation = summarise(
-			res.map((r, i) => [samples[i].value, r.estimate]),
-			res.map((r) => r.variance)
-		);
-	} else {
-		crossValidation = idwCrossValidation(samples, req.power, k);
-	}
-	await onProgress(0.15);
-
-	// Set-up (checks, k-d tree, solver buffers) once; the strips only compute their rows.
+	// IDW's set-up comes first: with every site at power 2 and a strip runner (the server's
+	// threads), the rows start on the threads now and are computed while the cross-validation
+	// runs here; their progress is reported after the cross-validation's.
 	const value64 = new Float64Array(cells);
 	const sigma64 = sigma ? new Float64Array(cells) : null;
-	const rows =
-		req.method === 'kriging' ? krigingRows(samples, grid, variogram!, { maxNeighbours: k }) : null;
 	const idw =
 		req.method === 'kriging'
 			? null
 			: idwRows(samples, grid, { power: req.power, maxNeighbours: k });
 	const gridProgress = (rowsDone: number) => onProgress(0.15 + (0.8 * rowsDone) / grid.ny);
-	if (idw?.everySitePower2 && options.idwStrips) {
-		await options.idwStrips(idw.everySitePower2, grid, STRIP_ROWS, value64, gridProgress);
+	let crossValidated!: () => void;
+	const afterCrossValidation = new Promise<void>((r) => (crossValidated = r));
+	const stop = new AbortController();
+	const strips =
+		idw?.everySitePower2 && options.idwStrips
+			? options.idwStrips(
+					idw.everySitePower2,
+					grid,
+					STRIP_ROWS,
+					value64,
+					async (rowsDone) => {
+						await afterCrossValidation;
+						await gridProgress(rowsDone);
+					},
+					stop.signal
+				)
+			: null;
+	// Handled (awaited) after the cross-validation; until then a rejection must not count as
+	// unhandled, which would end the process.
+	strips?.catch(() => {});
+	try {
+		if (req.method === 'kriging') {
+			({ variogram, empirical } = chooseVariogram(samples, req));
+			await onProgress(0.05);
+			const res = crossValidationResiduals(samples, variogram, { maxNeighbours: k });
+			crossValidation = summarise(
+				res.map((r, i) => [samples[i].value, r.estimate]),
+				res.map((r) => r.variance)
+			);
+		} else {
+			crossValidation = idwCrossValidation(samples, req.power, k);
+		}
+		await onProgress(0.15);
+	} catch (err) {
+		// The threads stop and end before the error goes on.
+		stop.abort();
+		await strips?.catch(() => {});
+		throw err;
+	}
+	crossValidated();
+
+	if (strips) {
+		await strips;
 	} else {
+		// Set-up (checks, k-d tree, solver buffers) once; the strips only compute their rows.
+		const rows =
+			req.method === 'kriging'
+				? krigingRows(samples, grid, variogram!, { maxNeighbours: k })
+				: null;
 		for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
 			const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
 			if (rows) rows(j0, j1, value64, sigma64!);

@@ -90,6 +90,42 @@ describe('IDW on worker threads', () => {
 		await expect(run).rejects.toBe(stop);
 	});
 
+	it('an abort ends the run with its reason', async () => {
+		const stop = new AbortController();
+		const reason = new Error('stop');
+		const run = idwThreads(2)!(
+			inputs,
+			grid,
+			4,
+			new Float64Array(23 * 37),
+			async () => stop.abort(reason),
+			stop.signal
+		);
+		await expect(run).rejects.toBe(reason);
+	});
+
+	it('computeGrid: a failing progress report during the threaded run is the error it throws', async () => {
+		const req = gridRequestSchema.parse({
+			method: 'idw',
+			bbox: [7, 58, 9, 59],
+			cellSizeM: 1000,
+			power: 2
+		});
+		const stop = new Error('superseded');
+		for (const at of [0.15, 0.5]) {
+			const run = computeGrid(
+				samples,
+				grid,
+				req,
+				async (f) => {
+					if (f >= at) throw stop;
+				},
+				{ idwStrips: idwThreads(2) }
+			);
+			await expect(run).rejects.toBe(stop);
+		}
+	});
+
 	it('thread count: THERMALITH_GRID_THREADS, else at most two; 1 means no threads', () => {
 		expect(gridThreadCount({ THERMALITH_GRID_THREADS: '3' })).toBe(3);
 		expect(gridThreadCount({})).toBeGreaterThanOrEqual(1);

@@ -57,7 +57,7 @@ export function idwThreads(
 ): IdwStripRunner | undefined {
 	if (!(threads > 1)) return undefined;
 	const source = WORKER_SOURCE(kernel.toString());
-	return async ({ xs, ys, zs }, grid, stripRows, out, onRows) => {
+	return async ({ xs, ys, zs }, grid, stripRows, out, onRows, signal) => {
 		const { nx, ny, x0, y0, dx, dy } = grid;
 		const result = new Float64Array(new SharedArrayBuffer(nx * ny * 8));
 		const workerData = { xs: sharedCopy(xs), ys: sharedCopy(ys), zs: sharedCopy(zs) };
@@ -81,6 +81,8 @@ export function idwThreads(
 					next = Math.min(ny, j0 + stripRows);
 					w.postMessage({ j0, j1: next });
 				};
+				if (signal?.aborted) return fail(signal.reason);
+				signal?.addEventListener('abort', () => fail(signal.reason), { once: true });
 				for (let t = 0; t < count; t++) {
 					const w = new Worker(source, {
 						eval: true,
