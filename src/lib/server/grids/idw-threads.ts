@@ -20,14 +20,23 @@ import { gridThreadsSchema } from '../env-schema.js';
 /** A thread that failed or stopped: the same inputs would fail again, so the grid fails. */
 export class GridThreadError extends Error {}
 
+/**
+ * A thread takes the next strip from a shared counter (Atomics), so the threads keep working
+ * while the job's own thread is busy (the cross-validation runs there meanwhile); it posts each
+ * finished strip for progress, and stays (listening) until it is terminated.
+ */
 const WORKER_SOURCE = (kernel: string) => `
 const { parentPort, workerData } = require('node:worker_threads');
 const kernel = (${kernel});
-const { xs, ys, zs, out, nx, x0, y0, dx, dy } = workerData;
-parentPort.on('message', ({ j0, j1 }) => {
+const { xs, ys, zs, out, next, nx, ny, x0, y0, dx, dy, stripRows } = workerData;
+parentPort.on('message', () => {});
+for (;;) {
+	const j0 = Atomics.add(next, 0, stripRows);
+	if (j0 >= ny) break;
+	const j1 = Math.min(ny, j0 + stripRows);
 	kernel(xs, ys, zs, nx, x0, y0, dx, dy, j0, j1, out);
 	parentPort.postMessage({ j0, j1 });
-});
+}
 `;
 
 /**
@@ -60,12 +69,24 @@ export function idwThreads(
 	return async ({ xs, ys, zs }, grid, stripRows, out, onRows, signal) => {
 		const { nx, ny, x0, y0, dx, dy } = grid;
 		const result = new Float64Array(new SharedArrayBuffer(nx * ny * 8));
-		const workerData = { xs: sharedCopy(xs), ys: sharedCopy(ys), zs: sharedCopy(zs) };
+		const workerData = {
+			xs: sharedCopy(xs),
+			ys: sharedCopy(ys),
+			zs: sharedCopy(zs),
+			out: result,
+			next: new Int32Array(new SharedArrayBuffer(4)),
+			nx,
+			ny,
+			x0,
+			y0,
+			dx,
+			dy,
+			stripRows
+		};
 		const count = Math.min(threads, Math.ceil(ny / stripRows));
 		const workers: Worker[] = [];
 		try {
 			await new Promise<void>((resolve, reject) => {
-				let next = 0;
 				let rowsDone = 0;
 				let settled = false;
 				// Progress calls run one after another, in order, while the threads go on.
@@ -75,26 +96,16 @@ export function idwThreads(
 					settled = true;
 					reject(err);
 				};
-				const give = (w: Worker) => {
-					if (next >= ny) return;
-					const j0 = next;
-					next = Math.min(ny, j0 + stripRows);
-					w.postMessage({ j0, j1: next });
-				};
 				if (signal?.aborted) return fail(signal.reason);
 				signal?.addEventListener('abort', () => fail(signal.reason), { once: true });
 				for (let t = 0; t < count; t++) {
-					const w = new Worker(source, {
-						eval: true,
-						workerData: { ...workerData, out: result, nx, x0, y0, dx, dy }
-					});
+					const w = new Worker(source, { eval: true, workerData });
 					workers.push(w);
 					w.on('message', ({ j0, j1 }: { j0: number; j1: number }) => {
 						if (settled) return;
 						out.set(result.subarray(j0 * nx, j1 * nx), j0 * nx);
 						rowsDone += j1 - j0;
 						const done = rowsDone;
-						give(w);
 						progress = progress.then(() => onRows(done));
 						if (done === ny) {
 							progress.then(() => {
@@ -113,7 +124,6 @@ export function idwThreads(
 							)
 						)
 					);
-					give(w);
 				}
 			});
 		} finally {
