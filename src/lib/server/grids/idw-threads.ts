@@ -23,18 +23,26 @@ export class GridThreadError extends Error {}
 /**
  * A thread takes the next strip from a shared counter (Atomics), so the threads keep working
  * while the job's own thread is busy (the cross-validation runs there meanwhile); it posts each
- * finished strip for progress, and stays (listening) until it is terminated.
+ * finished strip for progress, and stays (listening) until it is terminated. The kernel reads
+ * and writes the thread's own (unshared) arrays, and each strip is then copied into the shared
+ * result: on shared buffers the same kernel measured about 1.5× slower here (a grid-sized local
+ * array per thread, 8 bytes a cell, because the kernel indexes whole-grid rows).
  */
 const WORKER_SOURCE = (kernel: string) => `
 const { parentPort, workerData } = require('node:worker_threads');
 const kernel = (${kernel});
-const { xs, ys, zs, out, next, nx, ny, x0, y0, dx, dy, stripRows } = workerData;
+const { next, out, nx, ny, x0, y0, dx, dy, stripRows } = workerData;
+const xs = Float64Array.from(workerData.xs);
+const ys = Float64Array.from(workerData.ys);
+const zs = Float64Array.from(workerData.zs);
+const local = new Float64Array(out.length);
 parentPort.on('message', () => {});
 for (;;) {
 	const j0 = Atomics.add(next, 0, stripRows);
 	if (j0 >= ny) break;
 	const j1 = Math.min(ny, j0 + stripRows);
-	kernel(xs, ys, zs, nx, x0, y0, dx, dy, j0, j1, out);
+	kernel(xs, ys, zs, nx, x0, y0, dx, dy, j0, j1, local);
+	out.set(local.subarray(j0 * nx, j1 * nx), j0 * nx);
 	parentPort.postMessage({ j0, j1 });
 }
 `;
