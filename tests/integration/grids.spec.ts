@@ -13,7 +13,11 @@ import { fromArrayBuffer } from 'geotiff';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../src/lib/server/db/client';
-import { site } from '../../src/lib/server/db/schema';
+import { grid as gridTable, site } from '../../src/lib/server/db/schema';
+import { computeGrid } from '../../src/lib/grids/compute';
+import type { GridPlan } from '../../src/lib/grids/plan';
+import type { GridRequest } from '../../src/lib/grids/request';
+import type { GridSample } from '../../src/lib/server/repositories/grids';
 import { testEnv } from './env';
 import { Client, DEMO_PASSWORD, signIn } from './http';
 import { USER_RATE_RULES } from '../../src/lib/server/auth/rate-rules';
@@ -81,6 +85,37 @@ async function publicSiteCount(): Promise<number> {
 		(f: { properties: { heatFlowMWm2: number | null } }) => f.properties.heatFlowMWm2 !== null
 	).length;
 }
+
+describe('an IDW grid with every site, computed by the built server on its grid threads', () => {
+	it('equals the same grid computed on one thread here, cell for cell', async () => {
+		const { body } = await post(anonymous, { method: 'idw', bbox: BBOX, cellSizeM: 3100 });
+		const done = await waitForGrid(anonymous, body.id);
+		expect(done.body.status).toBe('done');
+		expect(done.body.progress).toBe(1);
+		const [row] = await db.select().from(gridTable).where(eq(gridTable.id, body.id));
+		const plan = row.plan as unknown as GridPlan;
+		const samples = (row.samples as GridSample[]).map((s) => ({
+			x: s.x,
+			y: s.y,
+			value: s.heatFlowMWm2,
+			...(s.sigmaMWm2 !== null && s.sigmaMWm2 > 0 ? { sigma: s.sigmaMWm2 } : {})
+		}));
+		const here = await computeGrid(samples, plan.grid, row.request as unknown as GridRequest);
+		const tif = await download(anonymous, `/api/v1/grids/${body.id}/heat-flow.tif`);
+		const image = await (await fromArrayBuffer(new Uint8Array(tif).buffer)).getImage();
+		const [band] = (await image.readRasters()) as unknown as Float32Array[];
+		const { nx, ny } = plan.grid;
+		expect(band).toHaveLength(nx * ny);
+		// The GeoTIFF is north-up: its row r is the grid's row ny − 1 − r.
+		let same = 0;
+		for (let j = 0; j < ny; j++) {
+			for (let i = 0; i < nx; i++) {
+				if (Object.is(band[(ny - 1 - j) * nx + i], here.value[j * nx + i])) same++;
+			}
+		}
+		expect(same).toBe(nx * ny);
+	});
+});
 
 describe('a kriging grid requested by an anonymous visitor', () => {
 	let id: string;

@@ -12,9 +12,6 @@ import { optionalNeighbours, validateGrid, validateSamples } from './validate';
  */
 export const HIT_D2 = 1e-13;
 
-/** Above this Σw a cell may hold a hit (w = 1/d² > 1/HIT_D2) and is recomputed with care. */
-const SUSPECT_SUM = 1 / HIT_D2;
-
 export interface IdwOptions {
 	/** Exponent p of the weights 1 / dᵖ (Shepard 1968); 2 is common practice. */
 	power: number;
@@ -27,7 +24,21 @@ export interface IdwOptions {
 }
 
 /** Writes rows j0 … j1 − 1 of a grid into a full-grid array (index j · nx + i). */
-export type IdwRows = (j0: number, j1: number, out: Float64Array) => void;
+export interface IdwRows {
+	(j0: number, j1: number, out: Float64Array): void;
+	/**
+	 * Set when the rows come from idwEverySitePower2Rows (every sample, power 2): its inputs,
+	 * so a caller may run that self-contained kernel on other threads with the same result.
+	 */
+	everySitePower2?: IdwEverySiteInputs;
+}
+
+/** The unpacked samples idwEverySitePower2Rows reads. */
+export interface IdwEverySiteInputs {
+	xs: Float64Array;
+	ys: Float64Array;
+	zs: Float64Array;
+}
 
 /**
  * Inverse-distance-weighted grid (Shepard 1968): ẑ = Σ wᵢ zᵢ / Σ wᵢ with wᵢ = 1 / dᵢᵖ,
@@ -77,7 +88,12 @@ export function idwRows(samples: Sample[], grid: GridSpec, opts: IdwOptions): Id
 	const { nx, x0, y0, dx, dy } = grid;
 
 	if (k === undefined && radius === undefined) {
-		if (power === 2) return (j0, j1, out) => everySitePower2(xs, ys, zs, grid, j0, j1, out);
+		if (power === 2) {
+			const rows: IdwRows = (j0, j1, out) =>
+				idwEverySitePower2Rows(xs, ys, zs, nx, x0, y0, dx, dy, j0, j1, out);
+			rows.everySitePower2 = { xs, ys, zs };
+			return rows;
+		}
 		return (j0, j1, out) => {
 			for (let j = j0; j < j1; j++) {
 				const cy = y0 + (j + 0.5) * dy;
@@ -175,21 +191,31 @@ function everySiteCell(
  *   for four cells and the four divisions are independent (the CPU overlaps them); measured
  *   about 2× faster than one cell per pass on the benchmark machine;
  * - no branch in the inner loop: a hit (d² < HIT_D2) makes a weight above 1/HIT_D2 (or
- *   Infinity at d = 0), so Σw ≥ SUSPECT_SUM flags the cell and it is recomputed by
- *   everySiteCell, which handles hits. A cell flagged without a hit gets the same weights.
- * Same weights and sums in the same order as everySiteCell, so the results are identical.
+ *   Infinity at d = 0), so Σw ≥ 1/HIT_D2 flags the cell and it is recomputed by the careful
+ *   loop below, which handles hits (as everySiteCell). A cell flagged without a hit gets the
+ *   same weights. Same weights and sums in the same order, so the results are identical.
+ *
+ * SELF-CONTAINED on purpose: it refers to nothing outside its parameters (HIT_D2 and its
+ * inverse are written as literals, no helper functions, no nested functions), because the grid
+ * job's threads run it from its source text (src/lib/server/grids/idw-threads.ts); a test runs
+ * it in an empty context to keep it so, and another that the literals equal HIT_D2.
  */
-function everySitePower2(
+export function idwEverySitePower2Rows(
 	xs: Float64Array,
 	ys: Float64Array,
 	zs: Float64Array,
-	grid: GridSpec,
+	nx: number,
+	x0: number,
+	y0: number,
+	dx: number,
+	dy: number,
 	j0: number,
 	j1: number,
 	out: Float64Array
 ): void {
-	const { nx, x0, y0, dx, dy } = grid;
 	const n = xs.length;
+	// Cells of the current row whose fast sum says "maybe a hit": redone carefully.
+	const careful = new Uint8Array(nx);
 	for (let j = j0; j < j1; j++) {
 		const cy = y0 + (j + 0.5) * dy;
 		const row = j * nx;
@@ -229,16 +255,39 @@ function everySitePower2(
 				s3 += w3;
 				t3 += w3 * z;
 			}
-			out[row + i] = s0 < SUSPECT_SUM ? t0 / s0 : everySiteCell(xs, ys, zs, c0, cy, inverseSquare);
-			out[row + i + 1] =
-				s1 < SUSPECT_SUM ? t1 / s1 : everySiteCell(xs, ys, zs, c1, cy, inverseSquare);
-			out[row + i + 2] =
-				s2 < SUSPECT_SUM ? t2 / s2 : everySiteCell(xs, ys, zs, c2, cy, inverseSquare);
-			out[row + i + 3] =
-				s3 < SUSPECT_SUM ? t3 / s3 : everySiteCell(xs, ys, zs, c3, cy, inverseSquare);
+			// Above Σw = 1 / HIT_D2 a cell may hold a hit (w = 1/d² > 1/HIT_D2): written out, see above.
+			careful[i] = s0 < 1 / 1e-13 ? 0 : 1;
+			careful[i + 1] = s1 < 1 / 1e-13 ? 0 : 1;
+			careful[i + 2] = s2 < 1 / 1e-13 ? 0 : 1;
+			careful[i + 3] = s3 < 1 / 1e-13 ? 0 : 1;
+			out[row + i] = t0 / s0;
+			out[row + i + 1] = t1 / s1;
+			out[row + i + 2] = t2 / s2;
+			out[row + i + 3] = t3 / s3;
 		}
-		for (; i < nx; i++) {
-			out[row + i] = everySiteCell(xs, ys, zs, x0 + (i + 0.5) * dx, cy, inverseSquare);
+		for (; i < nx; i++) careful[i] = 1;
+		for (i = 0; i < nx; i++) {
+			if (careful[i] === 0) continue;
+			// The careful cell, as everySiteCell with w = 1/d²: hits (d² < HIT_D2) give their mean.
+			const cx = x0 + (i + 0.5) * dx;
+			let sw = 0;
+			let swz = 0;
+			let exact = 0;
+			let exactSum = 0;
+			for (let s = 0; s < n; s++) {
+				const ex = xs[s] - cx;
+				const ey = ys[s] - cy;
+				const d2 = ex * ex + ey * ey;
+				if (d2 < 1e-13) {
+					exact++;
+					exactSum += zs[s];
+				} else {
+					const w = 1 / d2;
+					sw += w;
+					swz += w * zs[s];
+				}
+			}
+			out[row + i] = exact > 0 ? exactSum / exact : swz / sw;
 		}
 	}
 }

@@ -9,7 +9,14 @@ export type { Sample, GridSpec, VariogramModel, Variogram, VariogramPoint } from
 export { InputError } from '../foundation/errors';
 export { SingularSystemError } from './errors';
 export { MAX_GRID_CELLS, cellCentreX, cellCentreY, cellIndex, gridFromExtent } from './grid';
-export { inverseDistanceGrid, idwRows, type IdwOptions, type IdwRows } from './idw';
+export {
+	inverseDistanceGrid,
+	idwRows,
+	idwEverySitePower2Rows,
+	type IdwEverySiteInputs,
+	type IdwOptions,
+	type IdwRows
+} from './idw';
 export { semivariance, sill, structure } from './variogram';
 export { empiricalVariogram, defaultLagClasses, DEFAULT_LAGS } from './empirical';
 export {

@@ -8,6 +8,7 @@ import {
 	maskByDistance,
 	mergeDuplicateSamples,
 	type GridSpec,
+	type IdwEverySiteInputs,
 	type Sample,
 	type Variogram,
 	type VariogramPoint
@@ -261,12 +262,34 @@ function summarise(pairs: [number, number][], variances: number[] | null): Cross
 	};
 }
 
+/**
+ * Runs idwEverySitePower2Rows over all rows of `grid` into `out` (full grid, index j · nx + i),
+ * in strips of `stripRows`, calling `onRows` with the number of rows done after each strip
+ * (in order, increasing). The server runs it on worker threads (src/lib/server/grids); it must
+ * give the same numbers as the kernel on this thread, which every split of the rows does.
+ * Aborting `signal` ends it early with a rejection.
+ */
+export type IdwStripRunner = (
+	inputs: IdwEverySiteInputs,
+	grid: GridSpec,
+	stripRows: number,
+	out: Float64Array,
+	onRows: (rowsDone: number) => Promise<void>,
+	signal?: AbortSignal
+) => Promise<void>;
+
+export interface ComputeGridOptions {
+	/** Where IDW with every site and power 2 runs; on this thread, strip by strip, without it. */
+	idwStrips?: IdwStripRunner;
+}
+
 /** Samples are projected metres and mW/m²; `onProgress` gets a fraction 0–1. */
 export async function computeGrid(
 	input: Sample[],
 	grid: GridSpec,
 	req: GridRequest,
-	onProgress: (fraction: number) => Promise<void> = async () => {}
+	onProgress: (fraction: number) => Promise<void> = async () => {},
+	options: ComputeGridOptions = {}
 ): Promise<GridComputation> {
 	const samples = mergeDuplicateSamples(
 		input.map((s) =>
@@ -284,33 +307,71 @@ export async function computeGrid(
 		req.method === 'kriging'
 			? (req.maxNeighbours ?? DEFAULT_KRIGING_NEIGHBOURS)
 			: req.maxNeighbours;
-	if (req.method === 'kriging') {
-		({ variogram, empirical } = chooseVariogram(samples, req));
-		await onProgress(0.05);
-		const res = crossValidationResiduals(samples, variogram, { maxNeighbours: k });
-		crossValidation = summarise(
-			res.map((r, i) => [samples[i].value, r.estimate]),
-			res.map((r) => r.variance)
-		);
-	} else {
-		crossValidation = idwCrossValidation(samples, req.power, k);
-	}
-	await onProgress(0.15);
-
-	// Set-up (checks, k-d tree, solver buffers) once; the strips only compute their rows.
+	// IDW's set-up comes first: with every site at power 2 and a strip runner (the server's
+	// threads), the rows start on the threads now and are computed while the cross-validation
+	// runs here; their progress is reported after the cross-validation's.
 	const value64 = new Float64Array(cells);
 	const sigma64 = sigma ? new Float64Array(cells) : null;
-	const rows =
-		req.method === 'kriging' ? krigingRows(samples, grid, variogram!, { maxNeighbours: k }) : null;
 	const idw =
 		req.method === 'kriging'
 			? null
 			: idwRows(samples, grid, { power: req.power, maxNeighbours: k });
-	for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
-		const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
-		if (rows) rows(j0, j1, value64, sigma64!);
-		else idw!(j0, j1, value64);
-		await onProgress(0.15 + (0.8 * j1) / grid.ny);
+	const gridProgress = (rowsDone: number) => onProgress(0.15 + (0.8 * rowsDone) / grid.ny);
+	let crossValidated!: () => void;
+	const afterCrossValidation = new Promise<void>((r) => (crossValidated = r));
+	const stop = new AbortController();
+	const strips =
+		idw?.everySitePower2 && options.idwStrips
+			? options.idwStrips(
+					idw.everySitePower2,
+					grid,
+					STRIP_ROWS,
+					value64,
+					async (rowsDone) => {
+						await afterCrossValidation;
+						await gridProgress(rowsDone);
+					},
+					stop.signal
+				)
+			: null;
+	// Handled (awaited) after the cross-validation; until then a rejection must not count as
+	// unhandled, which would end the process.
+	strips?.catch(() => {});
+	try {
+		if (req.method === 'kriging') {
+			({ variogram, empirical } = chooseVariogram(samples, req));
+			await onProgress(0.05);
+			const res = crossValidationResiduals(samples, variogram, { maxNeighbours: k });
+			crossValidation = summarise(
+				res.map((r, i) => [samples[i].value, r.estimate]),
+				res.map((r) => r.variance)
+			);
+		} else {
+			crossValidation = idwCrossValidation(samples, req.power, k);
+		}
+		await onProgress(0.15);
+	} catch (err) {
+		// The threads stop and end before the error goes on.
+		stop.abort();
+		await strips?.catch(() => {});
+		throw err;
+	}
+	crossValidated();
+
+	if (strips) {
+		await strips;
+	} else {
+		// Set-up (checks, k-d tree, solver buffers) once; the strips only compute their rows.
+		const rows =
+			req.method === 'kriging'
+				? krigingRows(samples, grid, variogram!, { maxNeighbours: k })
+				: null;
+		for (let j0 = 0; j0 < grid.ny; j0 += STRIP_ROWS) {
+			const j1 = Math.min(grid.ny, j0 + STRIP_ROWS);
+			if (rows) rows(j0, j1, value64, sigma64!);
+			else idw!(j0, j1, value64);
+			await gridProgress(j1);
+		}
 	}
 	value.set(value64);
 	if (sigma) sigma.set(sigma64!);

@@ -15,6 +15,12 @@ const url = (protocols) =>
 			message: `must start with ${protocols.join(' or ')}//`
 		});
 
+/**
+ * Threads one grid job computes IDW on (src/lib/server/grids/idw-threads.ts); 1 = none, unset =
+ * min(2, cores). Exported alone because the grid worker script reads just this variable.
+ */
+export const gridThreadsSchema = z.coerce.number().int().min(1).max(64).optional();
+
 export const envSchema = z
 	.object({
 		DATABASE_URL: url(['postgres:', 'postgresql:']),
@@ -50,6 +56,7 @@ export const envSchema = z
 		THERMALITH_WORKERS: z.enum(['on', 'off']).default('on'),
 		// Most sites the map's in-memory index holds per process (41 bytes each); 0 turns it off.
 		THERMALITH_MAP_INDEX_MAX_SITES: z.coerce.number().int().min(0).default(5_000_000),
+		THERMALITH_GRID_THREADS: gridThreadsSchema,
 		THERMALITH_PROFILE: z
 			.enum(['dev', 'start', 'test', 'bench', 'production'])
 			.default('production')

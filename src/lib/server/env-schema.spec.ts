@@ -28,6 +28,17 @@ describe('one environment schema for the app and the scripts', () => {
 		);
 	});
 
+	it('takes a grid thread count of 1 or more and refuses 0 or a fraction', () => {
+		expect(parseEnv(usable).THERMALITH_GRID_THREADS).toBeUndefined();
+		expect(parseEnv({ ...usable, THERMALITH_GRID_THREADS: '1' }).THERMALITH_GRID_THREADS).toBe(1);
+		expect(envProblems({ ...usable, THERMALITH_GRID_THREADS: '0' })[0]).toMatch(
+			/^THERMALITH_GRID_THREADS:/
+		);
+		expect(envProblems({ ...usable, THERMALITH_GRID_THREADS: '1.5' })[0]).toMatch(
+			/^THERMALITH_GRID_THREADS:/
+		);
+	});
+
 	it('names every bad variable, including the ones only the scripts used to check', () => {
 		const problems = envProblems({
 			...usable,

@@ -4,6 +4,7 @@ import type { GridPlan } from '$lib/grids/plan';
 import type { GridRequest } from '$lib/grids/request';
 import { InputError, SingularSystemError } from '$lib/geostats';
 import type { Db } from '../db/client';
+import { GridThreadError, gridThreadCount, idwThreads } from '../grids/idw-threads';
 import {
 	failGrid,
 	finishGrid,
@@ -29,9 +30,9 @@ class Superseded extends Error {}
 const PROGRESS_EVERY_MS = 250;
 
 /**
- * Compute one grid. Bad data (a singular kriging system, input the geostatistics refuse) fails
- * the grid with its sentence and is not retried; anything else (database down, worker killed)
- * is thrown to pg-boss, which retries the job by the queue's policy.
+ * Compute one grid. Bad data (a singular kriging system, input the geostatistics refuse) or a
+ * failed computing thread fails the grid with its sentence and is not retried; anything else
+ * (database down, worker killed) is thrown to pg-boss, which retries the job by its policy.
  */
 export async function runGridJob(db: Db, gridId: string): Promise<void> {
 	const row = await gridForJob(db, gridId);
@@ -60,7 +61,8 @@ export async function runGridJob(db: Db, gridId: string): Promise<void> {
 				}
 				// Let the web server (when it shares this process) answer requests between strips.
 				await new Promise((r) => setImmediate(r));
-			}
+			},
+			{ idwStrips: idwThreads(gridThreadCount()) }
 		);
 		await finishGrid(
 			db,
@@ -82,7 +84,12 @@ export async function runGridJob(db: Db, gridId: string): Promise<void> {
 	} catch (err) {
 		// A later run of the same job owns the grid now (this one was taken for dead): stop quietly.
 		if (err instanceof Superseded) return;
-		if (err instanceof InputError || err instanceof SingularSystemError) {
+		// A failed thread ran a deterministic kernel: a retry would fail the same way.
+		if (
+			err instanceof InputError ||
+			err instanceof SingularSystemError ||
+			err instanceof GridThreadError
+		) {
 			await failGrid(db, gridId, attempt, `The grid could not be computed: ${err.message}`);
 			return;
 		}
