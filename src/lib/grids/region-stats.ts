@@ -3,6 +3,9 @@ import type { GridSpec } from '../geostats';
 import { DEFAULT_ISOTHERM_C, isothermDepthGrid } from './at-depth';
 import type { GridPlan } from './plan';
 import { projector } from './projection';
+import { regionPolygonSchema } from './region-polygon';
+
+export { MAX_REGION_VERTICES } from './region-polygon';
 
 /**
  * Statistics of a finished grid inside a drawn region (a lon/lat rectangle or polygon): the
@@ -22,18 +25,8 @@ import { projector } from './projection';
  * reached within the crust, are left out and their area reported.
  */
 
-/** Vertices of a drawn polygon (after densifying a rectangle's edges, if it is one). */
-export const MAX_REGION_VERTICES = 2000;
 /** Points added along each edge before projecting: lon/lat lines are curves in UTM. */
 const EDGE_POINTS = 16;
-
-const lonLat = z
-	.array(z.number().refine(Number.isFinite, 'coordinates must be finite numbers'))
-	.length(2, 'each polygon vertex must be [lon, lat]')
-	.refine(
-		([lon, lat]) => Math.abs(lon) <= 180 && Math.abs(lat) <= 90,
-		'a vertex is outside lon ±180, lat ±90'
-	);
 
 export const regionStatisticsRequestSchema = z
 	.object({
@@ -41,11 +34,9 @@ export const regionStatisticsRequestSchema = z
 			.array(z.number().refine(Number.isFinite, 'bbox must hold four finite numbers'))
 			.length(4, 'bbox must be [west, south, east, north] in degrees')
 			.optional(),
-		polygon: z
-			.array(lonLat)
-			.min(3, 'a polygon needs at least three vertices')
-			.max(MAX_REGION_VERTICES, `a polygon may have at most ${MAX_REGION_VERTICES} vertices`)
-			.optional(),
+		polygon: regionPolygonSchema.optional(),
+		/** A saved region's id; the server turns it into its polygon (same access as the map). */
+		region: z.uuid('region must be a saved region’s id').optional(),
 		temperatureC: z
 			.number({ error: 'temperatureC must be a number' })
 			.min(20, 'temperatureC must be from 20 to 1000')
@@ -53,8 +44,9 @@ export const regionStatisticsRequestSchema = z
 			.optional()
 	})
 	.strict()
-	.refine((r) => (r.bbox ? 1 : 0) + (r.polygon ? 1 : 0) === 1, {
-		message: 'give either bbox [west, south, east, north] or polygon [[lon, lat], …], not both'
+	.refine((r) => (r.bbox ? 1 : 0) + (r.polygon ? 1 : 0) + (r.region ? 1 : 0) === 1, {
+		message:
+			'give one of bbox [west, south, east, north], polygon [[lon, lat], …] or region (a saved region’s id)'
 	})
 	.refine(
 		(r) =>
