@@ -50,7 +50,7 @@ export const CRUST_MODELS: Record<CrustModelId, CrustModel> = {
 		name: 'Average continental crust (35 km)',
 		surfaceTemperatureC: D.surfaceTemperatureC,
 		layers: continentalLayers,
-		description: `Three-layer continental crust to 35 km: upper crust 0–15 km with heat production ${D.upperCrustHeatProductionUWm3} µW/m³ at the surface decaying over ${D.heatProductionDecayKm} km and conductivity ${D.upperCrustConductivityWmK} W/m/K, middle crust 15–25 km (${D.middleCrustHeatProductionUWm3} µW/m³, ${D.middleCrustConductivityWmK} W/m/K), lower crust 25–35 km (${D.lowerCrustHeatProductionUWm3} µW/m³, ${D.lowerCrustConductivityWmK} W/m/K).`,
+		description: `A three-layer continental crust to 35 km: upper crust 0–15 km with heat production ${D.upperCrustHeatProductionUWm3} µW/m³ at the surface decaying over ${D.heatProductionDecayKm} km and conductivity ${D.upperCrustConductivityWmK} W/m/K, middle crust 15–25 km (${D.middleCrustHeatProductionUWm3} µW/m³, ${D.middleCrustConductivityWmK} W/m/K), lower crust 25–35 km (${D.lowerCrustHeatProductionUWm3} µW/m³, ${D.lowerCrustConductivityWmK} W/m/K).`,
 		source: 'Common practice, from memory (no source); the same crust as the site geotherm.'
 	},
 	thin: {
@@ -67,7 +67,7 @@ export const CRUST_MODELS: Record<CrustModelId, CrustModel> = {
 			{ thicknessM: km(15), conductivityWmK: 2.3, heatProductionUWm3: 0.3 }
 		],
 		description:
-			'Two-layer crust thinned by stretching, to 25 km: upper crust 0–10 km with heat production 1.5 µW/m³ at the surface decaying over 8 km and conductivity 2.5 W/m/K, lower crust 10–25 km (0.3 µW/m³, 2.3 W/m/K).',
+			'A two-layer crust thinned by stretching, to 25 km: upper crust 0–10 km with heat production 1.5 µW/m³ at the surface decaying over 8 km and conductivity 2.5 W/m/K, lower crust 10–25 km (0.3 µW/m³, 2.3 W/m/K).',
 		source: 'From memory (no source): typical of rifted and extended continental crust.'
 	},
 	shield: {
@@ -85,7 +85,7 @@ export const CRUST_MODELS: Record<CrustModelId, CrustModel> = {
 			{ thicknessM: km(15), conductivityWmK: 2.4, heatProductionUWm3: 0.1 }
 		],
 		description:
-			'Three-layer shield crust to 45 km with low heat production: upper crust 0–15 km with 1.0 µW/m³ at the surface decaying over 10 km and conductivity 3.0 W/m/K, middle crust 15–30 km (0.4 µW/m³, 2.6 W/m/K), lower crust 30–45 km (0.1 µW/m³, 2.4 W/m/K).',
+			'A three-layer shield crust to 45 km with low heat production: upper crust 0–15 km with 1.0 µW/m³ at the surface decaying over 10 km and conductivity 3.0 W/m/K, middle crust 15–30 km (0.4 µW/m³, 2.6 W/m/K), lower crust 30–45 km (0.1 µW/m³, 2.4 W/m/K).',
 		source: 'From memory (no source): typical of old, cold continental interiors.'
 	},
 	basin: {

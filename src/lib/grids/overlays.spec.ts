@@ -28,9 +28,9 @@ describe('grid overlays', () => {
 		expect(overlayUrl(links, choice({ kind: 'sigma' }))).toBeNull();
 		expect(
 			overlayUrl(links, choice({ kind: 'isotherm-depth', isothermC: 120, percentile: 'p90' }))
-		).toBe(`${base}/isotherm-depth.png?temperatureC=120&band=p90&crust=continental`);
+		).toBe(`${base}/isotherm-depth.png?temperatureC=120&band=p90`);
 		expect(overlayUrl(links, choice({ kind: 'temperature-at-depth', depthM: 4500 }))).toBe(
-			`${base}/temperature-at-depth.png?depthM=4500&band=p50&crust=continental`
+			`${base}/temperature-at-depth.png?depthM=4500&band=p50`
 		);
 		expect(
 			overlayUrl(links, choice({ kind: 'temperature-at-depth', depthM: 4500, crust: 'basin' }))

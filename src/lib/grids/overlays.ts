@@ -66,6 +66,9 @@ export function overlayUrl(links: NonNullable<GridStatusView['links']>, c: Overl
 		for (const [k, v] of Object.entries(params)) q.set(k, v);
 		return `${path}?${q}`;
 	};
+	// The default crust is left out, so its addresses are those of grids before crust models.
+	const crustParam = (ch: OverlayChoice): Record<string, string> =>
+		modelOf(ch).id === DEFAULT_CRUST_MODEL ? {} : { crust: modelOf(ch).id };
 	switch (c.kind) {
 		case 'value':
 			return links.png;
@@ -75,13 +78,13 @@ export function overlayUrl(links: NonNullable<GridStatusView['links']>, c: Overl
 			return withParams(links.isothermDepthPng, {
 				temperatureC: String(c.isothermC),
 				band: c.percentile,
-				crust: modelOf(c).id
+				...crustParam(c)
 			});
 		case 'temperature-at-depth':
 			return withParams(links.temperatureAtDepthPng, {
 				depthM: String(c.depthM),
 				band: c.percentile,
-				crust: modelOf(c).id
+				...crustParam(c)
 			});
 	}
 }
