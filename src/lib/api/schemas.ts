@@ -381,6 +381,7 @@ export const gridRegionStatisticsSchema = z
 		heatFlowMWm2: weightedSummarySchema,
 		isothermDepthM: weightedSummarySchema.extend({
 			temperatureC: z.number(),
+			crust: crustModelIdSchema.meta({ description: 'The crustal model of the depths.' }),
 			notReachedAreaM2: z.number()
 		})
 	})

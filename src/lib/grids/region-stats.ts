@@ -1,6 +1,12 @@
 import { z } from 'zod';
 import type { GridSpec } from '../geostats';
 import { DEFAULT_ISOTHERM_C, isothermDepthGrid } from './at-depth';
+import {
+	CRUST_MODELS,
+	crustModelIdSchema,
+	DEFAULT_CRUST_MODEL,
+	type CrustModelId
+} from './crust-models';
 import type { GridPlan } from './plan';
 import { projector } from './projection';
 import { regionPolygonSchema } from './region-polygon';
@@ -41,7 +47,9 @@ export const regionStatisticsRequestSchema = z
 			.number({ error: 'temperatureC must be a number' })
 			.min(20, 'temperatureC must be from 20 to 1000')
 			.max(1000, 'temperatureC must be from 20 to 1000')
-			.optional()
+			.optional(),
+		/** The crustal model of the isotherm depth (crust-models.ts); default continental. */
+		crust: crustModelIdSchema.optional()
 	})
 	.strict()
 	.refine((r) => (r.bbox ? 1 : 0) + (r.polygon ? 1 : 0) + (r.region ? 1 : 0) === 1, {
@@ -77,7 +85,11 @@ export interface RegionStatistics {
 	/** Area of the region that lies over the grid (m², UTM). */
 	regionAreaM2: number;
 	heatFlowMWm2: WeightedSummary;
-	isothermDepthM: WeightedSummary & { temperatureC: number; notReachedAreaM2: number };
+	isothermDepthM: WeightedSummary & {
+		temperatureC: number;
+		crust: CrustModelId;
+		notReachedAreaM2: number;
+	};
 }
 
 type Ring = [number, number][];
@@ -214,13 +226,14 @@ export function gridRegionStatistics(
 	region: RegionStatisticsRequest
 ): RegionStatistics {
 	const temperatureC = region.temperatureC ?? DEFAULT_ISOTHERM_C;
+	const crust = region.crust ?? DEFAULT_CRUST_MODEL;
 	const weights = cellWeights(plan.grid, projectedRegion(plan, region));
 	const regionAreaM2 = weights.reduce((s, w) => s + w.areaM2, 0);
 	const heatFlow = weightedSummary(value, weights);
 	// Only the cells in the region: the geotherm per cell is the costly part.
 	const sub = Float32Array.from(weights, (w) => value[w.index]);
 	const subSigma = sigma ? Float32Array.from(weights, (w) => sigma[w.index]) : null;
-	const depth = isothermDepthGrid(sub, subSigma, temperatureC).p50;
+	const depth = isothermDepthGrid(sub, subSigma, temperatureC, CRUST_MODELS[crust]).p50;
 	const local = weights.map((w, k) => ({ index: k, areaM2: w.areaM2 }));
 	let notReachedAreaM2 = 0;
 	for (let k = 0; k < local.length; k++)
@@ -228,6 +241,6 @@ export function gridRegionStatistics(
 	return {
 		regionAreaM2,
 		heatFlowMWm2: heatFlow,
-		isothermDepthM: { ...weightedSummary(depth, local), temperatureC, notReachedAreaM2 }
+		isothermDepthM: { ...weightedSummary(depth, local), temperatureC, crust, notReachedAreaM2 }
 	};
 }
