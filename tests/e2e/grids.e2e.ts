@@ -154,6 +154,21 @@ describe('heat-flow grid on the map', () => {
 		await expect(stats.getByTestId('grid-region-depth').textContent()).resolves.toMatch(/\d km/);
 		await expect(stats.textContent()).resolves.toContain('Depth of 120 °C');
 
+		// Another crustal model redraws the at-depth overlay in it and says what it assumes.
+		await panel.getByTestId('grid-crust').selectOption('basin');
+		await expect
+			.poll(() => page.locator('.leaflet-grid-pane img').getAttribute('src'), { timeout: 15_000 })
+			.toMatch(/temperatureC=120&band=p90&crust=basin$/);
+		await overlayShown(page, 'isotherm-depth');
+		await expect(page.getByTestId('grid-legend-assumptions').textContent()).resolves.toMatch(
+			/Model estimate\..*Sedimentary basin/
+		);
+		await panel.getByTestId('grid-crust').selectOption('continental');
+		await expect
+			.poll(() => page.locator('.leaflet-grid-pane img').getAttribute('src'), { timeout: 15_000 })
+			.toMatch(/temperatureC=120&band=p90$/);
+		await overlayShown(page, 'isotherm-depth');
+
 		await page.getByTestId('overlay-temperature-at-depth').check();
 		expect(await overlayShown(page, 'temperature-at-depth')).toMatch(
 			/temperature-at-depth\.png\?depthM=3000&band=p90$/

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { HEAT_FLOW_METHODS } from '$lib/sites/methods';
 import { QUALITY_CLASSES } from '$lib/sites/quality';
 import { siteFeaturePropertiesSchema, siteSummarySchema } from '$lib/sites/summary';
+import { crustModelIdSchema } from '$lib/grids/crust-models';
 import { GRID_STATUSES } from '$lib/grids/status';
 
 /**
@@ -380,6 +381,7 @@ export const gridRegionStatisticsSchema = z
 		heatFlowMWm2: weightedSummarySchema,
 		isothermDepthM: weightedSummarySchema.extend({
 			temperatureC: z.number(),
+			crust: crustModelIdSchema.meta({ description: 'The crustal model of the depths.' }),
 			notReachedAreaM2: z.number()
 		})
 	})
@@ -557,6 +559,10 @@ export const gridFileQuery = z.object({
 	temperatureC: z.string().optional().meta({ description: 'isotherm-depth.tif/.png: °C.' }),
 	band: z.enum(['p10', 'p50', 'p90']).optional().meta({
 		description: 'At-depth overlay PNGs: percentile drawn (default p50; p10/p90 kriging only).'
+	}),
+	crust: crustModelIdSchema.optional().meta({
+		description:
+			'At-depth files and overlays: the crustal model (default continental; see /help/models).'
 	})
 });
 

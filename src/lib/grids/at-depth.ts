@@ -1,11 +1,18 @@
-import { defaultCrustForSite } from '../chart-data';
-import { NORMAL_Z90, solveGeotherm, temperatureAtDepthC, type GeothermProfile } from '../thermal';
+import { InputError } from '../foundation/errors';
+import {
+	NORMAL_Z90,
+	solveGeotherm,
+	temperatureAtDepthC,
+	type GeothermInput,
+	type GeothermProfile
+} from '../thermal';
 import { firstCrossingM } from '../thermal/derived';
+import { atDepthAssumptions, CRUST_MODELS, DEFAULT_CRUST_MODEL } from './crust-models';
 
 /**
  * Temperature at a depth and depth of an isotherm for every cell of a heat-flow grid, through the
- * thermal core's steady conductive geotherm in the default three-layer crust (chart-data's
- * site model, without temperature-dependent conductivity). With constant conductivities the
+ * thermal core's steady conductive geotherm in a chosen crust (crust-models.ts; default the
+ * site model's three-layer crust). With constant conductivities the
  * geotherm is affine in the surface heat flow q0 (T(z; q0) = T(z; qa) + (q0 − qa) · ∂T/∂q0, the
  * conduction equation being linear), so two solved profiles give every cell exactly.
  *
@@ -16,16 +23,32 @@ import { firstCrossingM } from '../thermal/derived';
 
 export const DEFAULT_AT_DEPTH_M = 3000;
 export const DEFAULT_ISOTHERM_C = 150;
-export const AT_DEPTH_ASSUMPTIONS =
-	'Steady one-dimensional conduction in an assumed three-layer continental crust (35 km, surface 10 °C, upper-crust heat production 2 µW/m³ decaying over 10 km); no groundwater flow or transients; P10–P90 from the heat-flow σ only.';
+/** The assumptions of the default crust (the status document's `atDepthAssumptions`). */
+export const AT_DEPTH_ASSUMPTIONS = atDepthAssumptions(CRUST_MODELS[DEFAULT_CRUST_MODEL]);
+
+/** A crust in the thermal core's input shape, without the boundary heat flow. */
+export type AtDepthCrust = Pick<GeothermInput, 'surfaceTemperatureC' | 'layers'>;
+const DEFAULT_CRUST: AtDepthCrust = CRUST_MODELS[DEFAULT_CRUST_MODEL];
 
 const Q_A = 60;
 const Q_B = 100;
 
 /** The two reference profiles (mW/m² at the surface). */
-function references(): [GeothermProfile, GeothermProfile] {
+function references(crust: AtDepthCrust): [GeothermProfile, GeothermProfile] {
+	// The affine shortcut is exact only with constant conductivities.
+	if (crust.layers.some((l) => l.conductivityTempCoeffPerK))
+		throw new InputError(
+			'layers',
+			null,
+			'must have conductivities constant with temperature for the at-depth maps'
+		);
 	const solve = (q: number) =>
-		solveGeotherm({ ...defaultCrustForSite({ heatFlowMWm2: q }).input, depthStepM: 50 });
+		solveGeotherm({
+			surfaceTemperatureC: crust.surfaceTemperatureC,
+			layers: crust.layers,
+			surfaceHeatFlowMWm2: q,
+			depthStepM: 50
+		});
 	return [solve(Q_A), solve(Q_B)];
 }
 
@@ -39,9 +62,10 @@ export interface Percentiles {
 export function temperatureAtDepthGrid(
 	value: Float32Array,
 	sigma: Float32Array | null,
-	depthM = DEFAULT_AT_DEPTH_M
+	depthM = DEFAULT_AT_DEPTH_M,
+	crust: AtDepthCrust = DEFAULT_CRUST
 ): Percentiles {
-	const [a, b] = references();
+	const [a, b] = references(crust);
 	const ta = temperatureAtDepthC(a, depthM);
 	const slope = (temperatureAtDepthC(b, depthM) - ta) / (Q_B - Q_A);
 	const at = (q: number) => ta + (q - Q_A) * slope;
@@ -119,9 +143,10 @@ function isothermDepthFunction(a: GeothermProfile, b: GeothermProfile, isothermC
 export function isothermDepthGrid(
 	value: Float32Array,
 	sigma: Float32Array | null,
-	isothermC = DEFAULT_ISOTHERM_C
+	isothermC = DEFAULT_ISOTHERM_C,
+	crust: AtDepthCrust = DEFAULT_CRUST
 ): Percentiles {
-	const [a, b] = references();
+	const [a, b] = references(crust);
 	const depthAt = isothermDepthFunction(a, b, isothermC);
 	const out = {
 		p10: new Float32Array(value.length),

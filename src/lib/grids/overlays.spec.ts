@@ -32,6 +32,21 @@ describe('grid overlays', () => {
 		expect(overlayUrl(links, choice({ kind: 'temperature-at-depth', depthM: 4500 }))).toBe(
 			`${base}/temperature-at-depth.png?depthM=4500&band=p50`
 		);
+		expect(
+			overlayUrl(links, choice({ kind: 'temperature-at-depth', depthM: 4500, crust: 'basin' }))
+		).toBe(`${base}/temperature-at-depth.png?depthM=4500&band=p50&crust=basin`);
+	});
+
+	it('follow the chosen crust: its base limits the depth, its assumptions are in the legend', () => {
+		const deep = choice({ kind: 'temperature-at-depth', depthM: 28_000 });
+		expect(overlayProblem(deep)).toBeNull();
+		expect(overlayProblem({ ...deep, crust: 'thin' })).toBe(
+			'Choose a depth within the 25 km of the model “Thin, stretched crust (25 km)”.'
+		);
+		const shield = overlayLegend(choice({ kind: 'isotherm-depth', crust: 'shield' }));
+		expect(shield.classes.at(-1)!.label).toBe('not reached within the 45 km crust');
+		expect(shield.assumptions).toContain('Thick old shield crust (45 km)');
+		expect(overlayLegend(choice({})).assumptions).toBe('');
 	});
 
 	it('name an isotherm or depth outside the limits in a sentence, only for its own overlay', () => {

@@ -1,12 +1,18 @@
 import { HEAT_FLOW_CLASSES } from '../map/heat-flow-scale';
 import {
 	BREAK_GRADIENTS_C_PER_KM,
-	CRUST_BASE_KM,
 	isothermDepthClasses,
 	NOT_REACHED_COLOUR,
 	SURFACE_TEMPERATURE_C,
 	temperatureClasses
 } from './at-depth-scale';
+import {
+	atDepthAssumptions,
+	CRUST_MODELS,
+	crustBaseM,
+	DEFAULT_CRUST_MODEL,
+	type CrustModelId
+} from './crust-models';
 import { SIGMA_CLASSES } from './sigma-scale';
 import type { GridStatusView } from './status-view';
 
@@ -24,7 +30,11 @@ export interface OverlayChoice {
 	isothermC: number;
 	depthM: number;
 	percentile: Percentile;
+	/** The crustal model of the at-depth overlays (crust-models.ts); default the continental crust. */
+	crust?: CrustModelId;
 }
+
+const modelOf = (c: OverlayChoice) => CRUST_MODELS[c.crust ?? DEFAULT_CRUST_MODEL];
 
 export const ISOTHERM_LIMITS_C = { min: 20, max: 1000 } as const;
 export const DEPTH_LIMITS_M = { min: 100, max: 30_000 } as const;
@@ -37,7 +47,15 @@ export function overlayProblem(c: OverlayChoice): string | null {
 		return `Choose an isotherm from ${ISOTHERM_LIMITS_C.min} to ${ISOTHERM_LIMITS_C.max} °C.`;
 	if (c.kind === 'temperature-at-depth' && !ok(c.depthM, DEPTH_LIMITS_M))
 		return `Choose a depth from ${DEPTH_LIMITS_M.min / 1000} to ${DEPTH_LIMITS_M.max / 1000} km.`;
+	if (c.kind === 'temperature-at-depth' && c.depthM > crustBaseM(modelOf(c)))
+		return depthBelowCrust(modelOf(c).id);
 	return null;
+}
+
+/** The sentence for a depth below the chosen model's base (the server says the same). */
+export function depthBelowCrust(crust: CrustModelId): string {
+	const m = CRUST_MODELS[crust];
+	return `Choose a depth within the ${crustBaseM(m) / 1000} km of the model “${m.name}”.`;
 }
 
 /** The overlay image of a choice (null when the grid has no such file, e.g. σ of an IDW grid). */
@@ -48,6 +66,9 @@ export function overlayUrl(links: NonNullable<GridStatusView['links']>, c: Overl
 		for (const [k, v] of Object.entries(params)) q.set(k, v);
 		return `${path}?${q}`;
 	};
+	// The default crust is left out, so its addresses are those of grids before crust models.
+	const crustParam = (ch: OverlayChoice): Record<string, string> =>
+		modelOf(ch).id === DEFAULT_CRUST_MODEL ? {} : { crust: modelOf(ch).id };
 	switch (c.kind) {
 		case 'value':
 			return links.png;
@@ -56,12 +77,14 @@ export function overlayUrl(links: NonNullable<GridStatusView['links']>, c: Overl
 		case 'isotherm-depth':
 			return withParams(links.isothermDepthPng, {
 				temperatureC: String(c.isothermC),
-				band: c.percentile
+				band: c.percentile,
+				...crustParam(c)
 			});
 		case 'temperature-at-depth':
 			return withParams(links.temperatureAtDepthPng, {
 				depthM: String(c.depthM),
-				band: c.percentile
+				band: c.percentile,
+				...crustParam(c)
 			});
 	}
 }
@@ -70,6 +93,8 @@ export interface OverlayLegend {
 	title: string;
 	classes: { label: string; colour: string }[];
 	notes: string[];
+	/** What an at-depth overlay assumes (the chosen crust); empty for the surface overlays. */
+	assumptions: string;
 }
 
 const PERCENTILE_WORDS: Record<Percentile, string> = {
@@ -89,13 +114,15 @@ export function overlayLegend(c: OverlayChoice): OverlayLegend {
 			return {
 				title: 'Estimated surface heat flow (mW/m²)',
 				classes: HEAT_FLOW_CLASSES,
-				notes: ['The same classes as the site markers.']
+				notes: ['The same classes as the site markers.'],
+				assumptions: ''
 			};
 		case 'sigma':
 			return {
 				title: 'Kriging standard error σ (mW/m²)',
 				classes: SIGMA_CLASSES,
-				notes: ['Darker is less certain.']
+				notes: ['Darker is less certain.'],
+				assumptions: ''
 			};
 		case 'isotherm-depth':
 			return {
@@ -103,7 +130,7 @@ export function overlayLegend(c: OverlayChoice): OverlayLegend {
 				classes: [
 					...isothermDepthClasses(c.isothermC),
 					{
-						label: `not reached within the ${CRUST_BASE_KM} km crust`,
+						label: `not reached within the ${crustBaseM(modelOf(c)) / 1000} km crust`,
 						colour: NOT_REACHED_COLOUR
 					}
 				],
@@ -111,13 +138,19 @@ export function overlayLegend(c: OverlayChoice): OverlayLegend {
 					'P10 is the shallowest (hot) case, P90 the deepest, from the heat-flow σ.',
 					gradients,
 					colours
-				]
+				],
+				assumptions: atDepthAssumptions(modelOf(c))
 			};
 		case 'temperature-at-depth':
 			return {
 				title: `Temperature at ${km(c.depthM)} (°C), ${PERCENTILE_WORDS[c.percentile]}`,
 				classes: temperatureClasses(c.depthM),
-				notes: ['P10 is the cool case, P90 the hot case, from the heat-flow σ.', gradients, colours]
+				notes: [
+					'P10 is the cool case, P90 the hot case, from the heat-flow σ.',
+					gradients,
+					colours
+				],
+				assumptions: atDepthAssumptions(modelOf(c))
 			};
 	}
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { isothermDepthGrid } from './at-depth';
+import { CRUST_MODELS } from './crust-models';
 import type { GridPlan } from './plan';
 import { chooseCrs, projector } from './projection';
 import {
@@ -102,6 +103,27 @@ describe('area-weighted region statistics of a grid', () => {
 		expect(s.isothermDepthM.p90).toBe(d[2]);
 		expect(s.isothermDepthM.notReachedAreaM2).toBe(0);
 		expect(s.isothermDepthM.p10!).toBeLessThan(s.isothermDepthM.p90!);
+	});
+
+	it('reads the isotherm depth in the chosen crustal model', () => {
+		const chosen = chooseCrs([7, 58, 9, 59]);
+		if (!chosen.ok) throw new Error(chosen.error);
+		const [cx, cy] = projector(chosen.crs).forward(8, 58.5);
+		const plan: GridPlan = {
+			crs: chosen.crs,
+			grid: { x0: cx - 15_000, y0: cy - 10_000, dx: 10_000, dy: 10_000, nx: 3, ny: 2 }
+		};
+		const at = (crust?: 'basin' | 'continental') =>
+			gridRegionStatistics(plan, value, null, { bbox: [7, 58, 9, 59], crust }).isothermDepthM;
+		expect(at()).toEqual(at('continental'));
+		expect(at().crust).toBe('continental');
+		// Sediment conducts less: 150 °C lies shallower under the same heat flow (cell by cell).
+		const basin = at('basin');
+		expect(basin.crust).toBe('basin');
+		expect(basin.p50!).toBeLessThan(at().p50!);
+		expect(basin.p50).toBe(
+			isothermDepthGrid(Float32Array.from([80]), null, 150, CRUST_MODELS.basin).p50[0]
+		);
 	});
 
 	it('refuses a region that is neither one bbox nor one polygon', () => {

@@ -1,8 +1,17 @@
 import { z } from 'zod';
 import type { GridSpec } from '../geostats';
 import { DEFAULT_ISOTHERM_C, isothermDepthGrid } from './at-depth';
+import {
+	CRUST_MODELS,
+	crustModelIdSchema,
+	DEFAULT_CRUST_MODEL,
+	type CrustModelId
+} from './crust-models';
 import type { GridPlan } from './plan';
 import { projector } from './projection';
+import { regionPolygonSchema } from './region-polygon';
+
+export { MAX_REGION_VERTICES } from './region-polygon';
 
 /**
  * Statistics of a finished grid inside a drawn region (a lon/lat rectangle or polygon): the
@@ -22,18 +31,8 @@ import { projector } from './projection';
  * reached within the crust, are left out and their area reported.
  */
 
-/** Vertices of a drawn polygon (after densifying a rectangle's edges, if it is one). */
-export const MAX_REGION_VERTICES = 2000;
 /** Points added along each edge before projecting: lon/lat lines are curves in UTM. */
 const EDGE_POINTS = 16;
-
-const lonLat = z
-	.array(z.number().refine(Number.isFinite, 'coordinates must be finite numbers'))
-	.length(2, 'each polygon vertex must be [lon, lat]')
-	.refine(
-		([lon, lat]) => Math.abs(lon) <= 180 && Math.abs(lat) <= 90,
-		'a vertex is outside lon ±180, lat ±90'
-	);
 
 export const regionStatisticsRequestSchema = z
 	.object({
@@ -41,20 +40,21 @@ export const regionStatisticsRequestSchema = z
 			.array(z.number().refine(Number.isFinite, 'bbox must hold four finite numbers'))
 			.length(4, 'bbox must be [west, south, east, north] in degrees')
 			.optional(),
-		polygon: z
-			.array(lonLat)
-			.min(3, 'a polygon needs at least three vertices')
-			.max(MAX_REGION_VERTICES, `a polygon may have at most ${MAX_REGION_VERTICES} vertices`)
-			.optional(),
+		polygon: regionPolygonSchema.optional(),
+		/** A saved region's id; the server turns it into its polygon (same access as the map). */
+		region: z.uuid('region must be a saved region’s id').optional(),
 		temperatureC: z
 			.number({ error: 'temperatureC must be a number' })
 			.min(20, 'temperatureC must be from 20 to 1000')
 			.max(1000, 'temperatureC must be from 20 to 1000')
-			.optional()
+			.optional(),
+		/** The crustal model of the isotherm depth (crust-models.ts); default continental. */
+		crust: crustModelIdSchema.optional()
 	})
 	.strict()
-	.refine((r) => (r.bbox ? 1 : 0) + (r.polygon ? 1 : 0) === 1, {
-		message: 'give either bbox [west, south, east, north] or polygon [[lon, lat], …], not both'
+	.refine((r) => (r.bbox ? 1 : 0) + (r.polygon ? 1 : 0) + (r.region ? 1 : 0) === 1, {
+		message:
+			'give one of bbox [west, south, east, north], polygon [[lon, lat], …] or region (a saved region’s id)'
 	})
 	.refine(
 		(r) =>
@@ -85,7 +85,11 @@ export interface RegionStatistics {
 	/** Area of the region that lies over the grid (m², UTM). */
 	regionAreaM2: number;
 	heatFlowMWm2: WeightedSummary;
-	isothermDepthM: WeightedSummary & { temperatureC: number; notReachedAreaM2: number };
+	isothermDepthM: WeightedSummary & {
+		temperatureC: number;
+		crust: CrustModelId;
+		notReachedAreaM2: number;
+	};
 }
 
 type Ring = [number, number][];
@@ -222,13 +226,14 @@ export function gridRegionStatistics(
 	region: RegionStatisticsRequest
 ): RegionStatistics {
 	const temperatureC = region.temperatureC ?? DEFAULT_ISOTHERM_C;
+	const crust = region.crust ?? DEFAULT_CRUST_MODEL;
 	const weights = cellWeights(plan.grid, projectedRegion(plan, region));
 	const regionAreaM2 = weights.reduce((s, w) => s + w.areaM2, 0);
 	const heatFlow = weightedSummary(value, weights);
 	// Only the cells in the region: the geotherm per cell is the costly part.
 	const sub = Float32Array.from(weights, (w) => value[w.index]);
 	const subSigma = sigma ? Float32Array.from(weights, (w) => sigma[w.index]) : null;
-	const depth = isothermDepthGrid(sub, subSigma, temperatureC).p50;
+	const depth = isothermDepthGrid(sub, subSigma, temperatureC, CRUST_MODELS[crust]).p50;
 	const local = weights.map((w, k) => ({ index: k, areaM2: w.areaM2 }));
 	let notReachedAreaM2 = 0;
 	for (let k = 0; k < local.length; k++)
@@ -236,6 +241,6 @@ export function gridRegionStatistics(
 	return {
 		regionAreaM2,
 		heatFlowMWm2: heatFlow,
-		isothermDepthM: { ...weightedSummary(depth, local), temperatureC, notReachedAreaM2 }
+		isothermDepthM: { ...weightedSummary(depth, local), temperatureC, crust, notReachedAreaM2 }
 	};
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { parseSiteFilters, type SiteFilters } from '../sites/filters';
+import { polygonBounds, regionPolygonSchema } from './region-polygon';
 
 /**
  * The one schema of a grid request (`POST /api/v1/grids` and the map's grid panel). Checks that
@@ -43,7 +44,15 @@ export const gridRequestSchema = z
 			.array(z.number({ error: 'bbox must hold four numbers [west, south, east, north]' }), {
 				error: 'bbox must be [west, south, east, north] in degrees'
 			})
-			.length(4, 'bbox must be [west, south, east, north] in degrees'),
+			.length(4, 'bbox must be [west, south, east, north] in degrees')
+			.optional(),
+		/**
+		 * A drawn region: the grid covers its box (or `bbox` when given) and its overlays and
+		 * downloads are empty outside it. Kept in the grid's stored request.
+		 */
+		polygon: regionPolygonSchema.optional(),
+		/** A saved region's id: the server puts its polygon in `polygon` before this schema. */
+		region: z.uuid('region must be a saved region’s id').optional(),
 		cellSizeM: finite('cellSizeM').pipe(z.number().positive('cellSizeM must be > 0')),
 		maskDistanceM: finite('maskDistanceM')
 			.pipe(z.number().positive('maskDistanceM must be > 0'))
@@ -62,7 +71,17 @@ export const gridRequestSchema = z
 		filters: z.record(z.string(), z.unknown()).optional()
 	})
 	.superRefine((r, ctx) => {
-		const [w, s, e, n] = r.bbox;
+		if (r.region && r.polygon)
+			ctx.addIssue({ code: 'custom', message: 'give polygon or region, not both' });
+		if (!r.bbox && !r.polygon) {
+			ctx.addIssue({
+				code: 'custom',
+				message:
+					'give bbox [west, south, east, north], polygon [[lon, lat], …] or region (a saved region’s id)'
+			});
+			return;
+		}
+		const [w, s, e, n] = r.bbox ?? polygonBounds(r.polygon!);
 		if (![w, s, e, n].every(Number.isFinite)) {
 			ctx.addIssue({ code: 'custom', message: 'bbox must hold four finite numbers (no NaN)' });
 			return;
@@ -85,8 +104,9 @@ export const gridRequestSchema = z
 				message: 'variogram.sillMWm2 must be greater than the nugget'
 			});
 	})
-	.transform((r) => ({
+	.transform(({ region: _region, ...r }) => ({
 		...r,
+		bbox: r.bbox ?? polygonBounds(r.polygon!),
 		power: r.power ?? 2,
 		filters: filtersFromJson(r.filters ?? {})
 	}));

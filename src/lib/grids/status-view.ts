@@ -12,6 +12,8 @@ export interface GridStatusView {
 		bbox: [number, number, number, number];
 		cellSizeM: number;
 		maskDistanceM?: number;
+		/** The drawn region the grid is clipped to, when it was a polygon. */
+		polygon?: [number, number][];
 	};
 	crs: { epsg: number; name: string };
 	boundsWgs84: [number, number, number, number];

@@ -481,12 +481,16 @@ export function openApiDocument() {
 			},
 			'/grids/{id}/statistics': {
 				get: {
-					summary: 'Area-weighted statistics of a finished grid inside a rectangle',
+					summary: 'Area-weighted statistics of a finished grid inside a rectangle or saved region',
 					tags: ['grids'],
 					requestParams: {
 						path: idPath,
 						query: z.object({
-							bbox: z.string().meta({ description: 'west,south,east,north in degrees' }),
+							bbox: z.string().optional().meta({ description: 'west,south,east,north in degrees' }),
+							region: z
+								.uuid()
+								.optional()
+								.meta({ description: 'A saved region’s id (instead of bbox).' }),
 							temperatureC: z.string().optional().meta({ description: 'Isotherm, default 150.' })
 						})
 					},
@@ -498,7 +502,8 @@ export function openApiDocument() {
 					}
 				},
 				post: {
-					summary: 'Area-weighted statistics of a finished grid inside a rectangle or polygon',
+					summary:
+						'Area-weighted statistics of a finished grid inside a rectangle, polygon or saved region',
 					tags: ['grids'],
 					requestParams: { path: idPath },
 					requestBody: { required: true, content: json(regionStatisticsRequestSchema) },
@@ -527,7 +532,9 @@ export function openApiDocument() {
 								}
 							}
 						},
-						'400': error('A bad depthM, temperatureC or band (p10/p90 need σ).'),
+						'400': error(
+							'A bad depthM, temperatureC, band (p10/p90 need σ) or crust, or a depth below the crust.'
+						),
 						'404': error('Unknown grid or file name, not visible, or not finished.'),
 						...COMMON_ERRORS
 					}

@@ -9,7 +9,16 @@ import {
 	temperatureAtDepthGrid
 } from '$lib/grids/at-depth';
 import { isothermDepthClasses, overlayColour, temperatureClasses } from '$lib/grids/at-depth-scale';
-import { DEPTH_LIMITS_M, ISOTHERM_LIMITS_C } from '$lib/grids/overlays';
+import { clipCells, outsideRegion } from '$lib/grids/clip';
+import {
+	atDepthAssumptions,
+	CRUST_MODELS,
+	crustBaseM,
+	crustModelIdSchema,
+	DEFAULT_CRUST_MODEL,
+	type CrustModel
+} from '$lib/grids/crust-models';
+import { depthBelowCrust, DEPTH_LIMITS_M, ISOTHERM_LIMITS_C } from '$lib/grids/overlays';
 import { gridRequestSchema, requestProblem, type GridRequest } from '$lib/grids/request';
 import {
 	gridRegionStatistics,
@@ -21,6 +30,7 @@ import { USER_RATE_RULES } from '../auth/rate-rules';
 import { countAttempt } from '../rate-limit';
 import type { Db } from '../db/client';
 import { enqueueGrid } from '../jobs/grid-queue';
+import { savedRegionShape } from '../repositories/saved-regions';
 import {
 	deleteQueuedGrid,
 	findOrCreateGrid,
@@ -35,6 +45,31 @@ import { gridBoundsWgs84, gridContours, gridCsv, gridOverlayPng, sourceLine } fr
 /** Shown with every grid and in its downloads (ModelCaution says the same on pages). */
 export const GRID_CAUTION =
 	'Model estimate interpolated from the sites shown, assuming a stationary, isotropic field and the stated variogram; not a measurement. For drilling and resource decisions follow your local regulations and rely on a licensed professional.';
+
+/**
+ * A body's `region` (a saved region's id) as its polygon, through the saved regions' access rule
+ * (another user's region is the one 404); bodies without one are returned as they are.
+ */
+async function withSavedRegion(db: Db, viewer: Viewer, body: unknown): Promise<unknown> {
+	if (typeof body !== 'object' || body === null || !('region' in body)) return body;
+	const { region, ...rest } = body as Record<string, unknown>;
+	if (region === undefined) return rest;
+	if ('polygon' in rest || 'bbox' in rest)
+		error(400, 'Bad region: give one of region, bbox or polygon, not several.');
+	if (typeof region !== 'string') error(400, 'Bad region: region must be a saved region’s id.');
+	const shape = await savedRegionShape(db, viewer, region);
+	if (shape.kind !== 'polygon') return { ...rest, bbox: shape.box };
+	return { ...rest, polygon: shape.ring };
+}
+
+/** Read and check a request body (a saved region taken as its polygon); 400 with a sentence. */
+export async function gridRequestFromBody(
+	db: Db,
+	viewer: Viewer,
+	body: unknown
+): Promise<GridRequest> {
+	return parseGridRequest(await withSavedRegion(db, viewer, body));
+}
 
 /** Read and check a request body; 400 with one sentence when it is not a grid request. */
 export function parseGridRequest(body: unknown): GridRequest {
@@ -180,6 +215,28 @@ function percentileBand(params: URLSearchParams, hasSigma: boolean): 'p10' | 'p5
 	return band;
 }
 
+/** The crustal model of the at-depth files (`crust=<id>`, default continental); 400 otherwise. */
+function crustParam(params: URLSearchParams): CrustModel {
+	const raw = params.get('crust');
+	if (raw === null || raw === '') return CRUST_MODELS[DEFAULT_CRUST_MODEL];
+	const parsed = crustModelIdSchema.safeParse(raw);
+	if (!parsed.success) error(400, `${parsed.error.issues[0].message}; got ${raw.slice(0, 20)}.`);
+	return CRUST_MODELS[parsed.data];
+}
+
+/** The at-depth files' depth, within the limits and the chosen crust. */
+function depthParam(params: URLSearchParams, crust: CrustModel): number {
+	const depthM = numberParam(
+		params,
+		'depthM',
+		DEFAULT_AT_DEPTH_M,
+		DEPTH_LIMITS_M.min,
+		DEPTH_LIMITS_M.max
+	);
+	if (depthM > crustBaseM(crust)) error(400, depthBelowCrust(crust.id));
+	return depthM;
+}
+
 /** One download of a finished grid, or the shared 404 (unknown, hidden, unfinished, no σ). */
 export async function gridFile(
 	db: Db,
@@ -193,11 +250,14 @@ export async function gridFile(
 	const row = await gridForViewer(db, viewer, id);
 	if (row.status !== 'done') notFound();
 	const plan = planOf(row);
-	const value = cellsOf(row.valueCells)!;
-	const sigma = cellsOf(row.sigmaCells);
+	const req = row.request as unknown as GridRequest;
+	// A grid of a drawn region is empty outside it, in every overlay and download.
+	const outside = req.polygon ? outsideRegion(plan, req.polygon) : null;
+	const value = clipCells(cellsOf(row.valueCells)!, outside);
+	const rawSigma = cellsOf(row.sigmaCells);
+	const sigma = rawSigma && clipCells(rawSigma, outside);
 	const wantsSigma = file.startsWith('sigma');
 	if (wantsSigma && !sigma) notFound();
-	const req = row.request as unknown as GridRequest;
 	const sources = await gridSources(db, row.datasetIds);
 	const fileName = `thermalith-grid-${row.id.slice(0, 8)}-${file}`;
 	const type = GRID_FILES[file];
@@ -238,15 +298,10 @@ export async function gridFile(
 			};
 		}
 		case 'temperature-at-depth.tif': {
-			const depthM = numberParam(
-				params,
-				'depthM',
-				DEFAULT_AT_DEPTH_M,
-				DEPTH_LIMITS_M.min,
-				DEPTH_LIMITS_M.max
-			);
-			const t = temperatureAtDepthGrid(value, sigma, depthM);
-			const description = `Thermalith grid ${row.id}. Temperature (deg C) at ${depthM} m; bands P10, P50, P90. Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
+			const crust = crustParam(params);
+			const depthM = depthParam(params, crust);
+			const t = temperatureAtDepthGrid(value, sigma, depthM, crust);
+			const description = `Thermalith grid ${row.id}. Temperature (deg C) at ${depthM} m; bands P10, P50, P90. Model estimate: ${atDepthAssumptions(crust)}`;
 			return { body: await gridGeoTiff([t.p10, t.p50, t.p90], plan, description), type, fileName };
 		}
 		case 'isotherm-depth.tif': {
@@ -257,20 +312,16 @@ export async function gridFile(
 				ISOTHERM_LIMITS_C.min,
 				ISOTHERM_LIMITS_C.max
 			);
-			const d = isothermDepthGrid(value, sigma, isothermC);
-			const description = `Thermalith grid ${row.id}. Depth (m) of ${isothermC} deg C; bands P10, P50, P90 (P10 shallowest). Model estimate: ${AT_DEPTH_ASSUMPTIONS}`;
+			const crust = crustParam(params);
+			const d = isothermDepthGrid(value, sigma, isothermC, crust);
+			const description = `Thermalith grid ${row.id}. Depth (m) of ${isothermC} deg C; bands P10, P50, P90 (P10 shallowest). Model estimate: ${atDepthAssumptions(crust)}`;
 			return { body: await gridGeoTiff([d.p10, d.p50, d.p90], plan, description), type, fileName };
 		}
 		case 'temperature-at-depth.png': {
-			const depthM = numberParam(
-				params,
-				'depthM',
-				DEFAULT_AT_DEPTH_M,
-				DEPTH_LIMITS_M.min,
-				DEPTH_LIMITS_M.max
-			);
+			const crust = crustParam(params);
+			const depthM = depthParam(params, crust);
 			const band = percentileBand(params, sigma !== null);
-			const cells = temperatureAtDepthGrid(value, sigma, depthM)[band];
+			const cells = temperatureAtDepthGrid(value, sigma, depthM, crust)[band];
 			const classes = temperatureClasses(depthM);
 			const png = await gridOverlayPng(
 				plan,
@@ -288,8 +339,9 @@ export async function gridFile(
 				ISOTHERM_LIMITS_C.min,
 				ISOTHERM_LIMITS_C.max
 			);
+			const crust = crustParam(params);
 			const band = percentileBand(params, sigma !== null);
-			const depth = isothermDepthGrid(value, sigma, isothermC)[band];
+			const depth = isothermDepthGrid(value, sigma, isothermC, crust)[band];
 			// A cell with a heat flow whose isotherm lies below the crust is drawn (grey), not empty.
 			for (let c = 0; c < depth.length; c++)
 				if (Number.isNaN(depth[c]) && !Number.isNaN(value[c])) depth[c] = Infinity;
@@ -334,14 +386,18 @@ export async function gridRegionStatisticsFor(
 	id: string,
 	body: unknown
 ): Promise<RegionStatistics & { gridId: string; crs: { epsg: number }; caution: string }> {
-	const region = parseRegionRequest(body);
+	const region = parseRegionRequest(await withSavedRegion(db, viewer, body));
 	const row = await gridForViewer(db, viewer, id);
 	if (row.status !== 'done') notFound();
 	const plan = planOf(row);
+	const req = row.request as unknown as GridRequest;
+	// The grid's own drawn region bounds it here too: cells outside it are empty everywhere.
+	const outside = req.polygon ? outsideRegion(plan, req.polygon) : null;
+	const sigma = cellsOf(row.sigmaCells);
 	const stats = gridRegionStatistics(
 		plan,
-		cellsOf(row.valueCells)!,
-		cellsOf(row.sigmaCells),
+		clipCells(cellsOf(row.valueCells)!, outside),
+		sigma && clipCells(sigma, outside),
 		region
 	);
 	return { gridId: row.id, crs: { epsg: plan.crs.epsg }, ...stats, caution: GRID_CAUTION };

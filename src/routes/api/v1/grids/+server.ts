@@ -3,12 +3,13 @@ import { json } from '@sveltejs/kit';
 import { clientAddress } from '$lib/server/auth/client-address';
 import { config } from '$lib/server/config';
 import { getDb } from '$lib/server/db';
-import { parseGridRequest, requestGrid } from '$lib/server/grids/service';
+import { gridRequestFromBody, requestGrid } from '$lib/server/grids/service';
 import { jobs } from '$lib/server/jobs/boss';
 import type { RequestHandler } from './$types';
 
 /**
- * Request a heat-flow grid of the sites the caller may see (JSON body: $lib/grids/request.ts).
+ * Request a heat-flow grid of the sites the caller may see (JSON body: $lib/grids/request.ts;
+ * `region` names a saved region of the caller's, taken as its polygon).
  * 202 with the grid's id and its status address in Location; an identical request over the same
  * visible data answers with the grid already made or in progress.
  */
@@ -19,7 +20,7 @@ export const POST: RequestHandler = apiHandler(async (event) => {
 	} catch {
 		throw new ApiFailure(400, 'invalid_json', 'Bad grid request: the body must be JSON.');
 	}
-	const req = parseGridRequest(body);
+	const req = await gridRequestFromBody(getDb(), event.locals.viewer, body);
 	const boss = await jobs(config().DATABASE_URL);
 	const caller = event.locals.viewer.userId ?? `address|${clientAddress(event.request)}`;
 	const found = await requestGrid(getDb(), boss, event.locals.viewer, req, caller);
