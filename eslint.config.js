@@ -55,6 +55,7 @@ export default ts.config(
 		ignores: [
 			'build/',
 			'build-test/',
+			'build-bench/',
 			'.svelte-kit/',
 			'storage/',
 			'coverage/',
