@@ -7,8 +7,8 @@ import { IDW_SIMD_WASM } from './idw-simd-module';
 import { IDW_SIMD_WASM_BASE64 } from './idw-simd.wasm';
 
 // Invented sites (common practice, no source: the wasm pass must equal the JavaScript pass).
-// Widths 23 and 64: a tail of cells after the last group of four, and none; one site sits on a
-// cell centre (a hit, the careful pass) and two on one point.
+// Widths 23 and 64: cells after the last wasm group of eight (a JavaScript group of four and a
+// tail), and none; one site sits on a cell centre (a hit, the careful pass), two on one point.
 function inputs(seed: number, n: number) {
 	const rnd = createRandom(seed).uniform;
 	const xs = new Float64Array(n);
