@@ -1,6 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { idwEverySitePower2Rows } from '$lib/geostats/idw';
+import { IDW_SIMD_WASM } from '$lib/geostats/idw-simd-module';
 import type { IdwStripRunner } from '$lib/grids/compute';
 import { gridThreadsSchema } from '../env-schema.js';
 
@@ -31,14 +32,14 @@ export class GridThreadError extends Error {}
 const WORKER_SOURCE = (kernel: string) => `
 const { parentPort, workerData } = require('node:worker_threads');
 const kernel = (${kernel});
-const { xs, ys, zs, next, out, nx, ny, x0, y0, dx, dy, stripRows } = workerData;
+const { xs, ys, zs, next, out, nx, ny, x0, y0, dx, dy, stripRows, wasm } = workerData;
 const local = new Float64Array(out.length);
 parentPort.on('message', () => {});
 for (;;) {
 	const j0 = Atomics.add(next, 0, stripRows);
 	if (j0 >= ny) break;
 	const j1 = Math.min(ny, j0 + stripRows);
-	kernel(xs, ys, zs, nx, x0, y0, dx, dy, j0, j1, local);
+	kernel(xs, ys, zs, nx, x0, y0, dx, dy, j0, j1, local, wasm);
 	out.set(local.subarray(j0 * nx, j1 * nx), j0 * nx);
 	parentPort.postMessage({ j0, j1 });
 }
@@ -81,7 +82,9 @@ export function idwThreads(
 			y0,
 			dx,
 			dy,
-			stripRows
+			stripRows,
+			// The kernel's SIMD pass (each thread instantiates it per strip).
+			wasm: IDW_SIMD_WASM
 		};
 		const count = Math.min(threads, Math.ceil(ny / stripRows));
 		const workers: Worker[] = [];
