@@ -237,6 +237,17 @@ function depthParam(params: URLSearchParams, crust: CrustModel): number {
 	return depthM;
 }
 
+/** The isotherm (°C) of an isotherm-depth download or overlay, within the shared limits. */
+function isothermParam(params: URLSearchParams): number {
+	return numberParam(
+		params,
+		'temperatureC',
+		DEFAULT_ISOTHERM_C,
+		ISOTHERM_LIMITS_C.min,
+		ISOTHERM_LIMITS_C.max
+	);
+}
+
 /** One download of a finished grid, or the shared 404 (unknown, hidden, unfinished, no σ). */
 export async function gridFile(
 	db: Db,
@@ -305,13 +316,7 @@ export async function gridFile(
 			return { body: await gridGeoTiff([t.p10, t.p50, t.p90], plan, description), type, fileName };
 		}
 		case 'isotherm-depth.tif': {
-			const isothermC = numberParam(
-				params,
-				'temperatureC',
-				DEFAULT_ISOTHERM_C,
-				ISOTHERM_LIMITS_C.min,
-				ISOTHERM_LIMITS_C.max
-			);
+			const isothermC = isothermParam(params);
 			const crust = crustParam(params);
 			const d = isothermDepthGrid(value, sigma, isothermC, crust);
 			const description = `Thermalith grid ${row.id}. Depth (m) of ${isothermC} deg C; bands P10, P50, P90 (P10 shallowest). Model estimate: ${atDepthAssumptions(crust)}`;
@@ -332,13 +337,7 @@ export async function gridFile(
 			return { body: png, type, fileName };
 		}
 		case 'isotherm-depth.png': {
-			const isothermC = numberParam(
-				params,
-				'temperatureC',
-				DEFAULT_ISOTHERM_C,
-				ISOTHERM_LIMITS_C.min,
-				ISOTHERM_LIMITS_C.max
-			);
+			const isothermC = isothermParam(params);
 			const crust = crustParam(params);
 			const band = percentileBand(params, sigma !== null);
 			const depth = isothermDepthGrid(value, sigma, isothermC, crust)[band];
