@@ -76,5 +76,11 @@ export async function until(
 		if (await check()) return;
 		await new Promise((r) => setTimeout(r, 200));
 	}
-	throw new Error(`timed out waiting for ${what}`);
+	// What the scripts of this test said last: a stall under load names its step, not just its wait.
+	const said = runs
+		.map(
+			(r, i) => `--- script ${i + 1}, last lines:\n${r.output().split('\n').slice(-25).join('\n')}`
+		)
+		.join('\n');
+	throw new Error(`timed out waiting for ${what}\n${said}`);
 }
